@@ -39,12 +39,20 @@ export default tseslint.config(
     ignores: ['packages/engine/src/cli/**', 'packages/engine/src/**/*.test.ts'],
     rules: {
       'no-restricted-imports': ['error', { patterns: ['node:*', 'fs', 'path', 'os', 'child_process'] }],
-      'no-restricted-properties': ['error', { object: 'Math', property: 'random', message: 'Use the seeded stream.' }],
+      'no-restricted-properties': [
+        'error',
+        { object: 'Math', property: 'random', message: 'Use the seeded stream.' },
+      ],
       'no-restricted-globals': ['error', 'setTimeout', 'setInterval', 'fetch', 'process'],
     },
   },
   {
     files: ['**/*.test.ts', '**/*.test.tsx'],
-    rules: { 'no-restricted-syntax': ['error', { selector: "MemberExpression[property.name='only']", message: '.only is not allowed' }] },
+    rules: {
+      'no-restricted-syntax': [
+        'error',
+        { selector: "MemberExpression[property.name='only']", message: '.only is not allowed' },
+      ],
+    },
   },
 );
