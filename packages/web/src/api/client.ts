@@ -1,0 +1,154 @@
+/**
+ * Every HTTP call the web app makes lives here. Errors come back as `ApiError` carrying the
+ * server's message and, when the server names one, the offending field.
+ */
+import type {
+  AuditEntry,
+  DesignDetail,
+  DesignSummary,
+  InboxMessage,
+  InboxSummary,
+  InviteInfo,
+  Me,
+  Revision,
+  RevisionSummary,
+  Role,
+  RunDetail,
+  RunLaunch,
+  RunResultsPayload,
+  RunSummary,
+  UserRow,
+  Workspace,
+} from './types.js';
+
+export interface ApiIssue {
+  path: string;
+  message: string;
+}
+
+export class ApiError extends Error {
+  readonly status: number;
+  readonly field?: string;
+  readonly issues?: ApiIssue[];
+  constructor(status: number, message: string, field?: string, issues?: ApiIssue[]) {
+    super(message);
+    this.name = 'ApiError';
+    this.status = status;
+    this.field = field;
+    this.issues = issues;
+  }
+}
+
+type Method = 'GET' | 'POST' | 'PATCH' | 'DELETE';
+
+/** Turn a failed response into an ApiError, whatever its body looks like. */
+async function toApiError(res: Response): Promise<ApiError> {
+  let body: unknown = null;
+  try {
+    body = await res.json();
+  } catch {
+    // Not JSON (a proxy page or an empty body): fall back to the status text.
+  }
+  const err = (body as { error?: { message?: unknown; field?: unknown; issues?: unknown } } | null)?.error;
+  const message =
+    typeof err?.message === 'string' && err.message
+      ? err.message
+      : `Request failed (${res.status}${res.statusText ? ` ${res.statusText}` : ''})`;
+  return new ApiError(
+    res.status,
+    message,
+    typeof err?.field === 'string' ? err.field : undefined,
+    Array.isArray(err?.issues) ? (err.issues as ApiIssue[]) : undefined,
+  );
+}
+
+/** One JSON request to `/api…`. Network failures become status 0. */
+export async function request<T>(method: Method, path: string, body?: unknown): Promise<T> {
+  let res: Response;
+  try {
+    res = await fetch(`/api${path}`, {
+      method,
+      credentials: 'same-origin',
+      headers:
+        body === undefined
+          ? { accept: 'application/json' }
+          : { 'content-type': 'application/json', accept: 'application/json' },
+      body: body === undefined ? undefined : JSON.stringify(body),
+    });
+  } catch {
+    throw new ApiError(0, 'Cannot reach the Sigmatail server. Check your connection and try again.');
+  }
+  if (!res.ok) throw await toApiError(res);
+  if (res.status === 204) return undefined as T;
+  const text = await res.text();
+  return (text ? JSON.parse(text) : undefined) as T;
+}
+
+/** A text download (CSV export) fetched through the same error handling. */
+export async function requestText(path: string): Promise<string> {
+  let res: Response;
+  try {
+    res = await fetch(`/api${path}`, { credentials: 'same-origin' });
+  } catch {
+    throw new ApiError(0, 'Cannot reach the Sigmatail server. Check your connection and try again.');
+  }
+  if (!res.ok) throw await toApiError(res);
+  return res.text();
+}
+
+function qs(params: Record<string, string | number | boolean | undefined>): string {
+  const sp = new URLSearchParams();
+  for (const [k, v] of Object.entries(params)) if (v !== undefined && v !== '') sp.set(k, String(v));
+  const s = sp.toString();
+  return s ? `?${s}` : '';
+}
+
+const enc = encodeURIComponent;
+
+export const api = {
+  auth: {
+    me: () => request<Me>('GET', '/auth/me'),
+    login: (email: string, password: string) => request<Me>('POST', '/auth/login', { email, password }),
+    logout: () => request<void>('POST', '/auth/logout'),
+    forgot: (email: string) => request<void>('POST', '/auth/forgot', { email }),
+    reset: (token: string, password: string) => request<void>('POST', '/auth/reset', { token, password }),
+    invite: (token: string) => request<InviteInfo>('GET', `/invites/${enc(token)}`),
+    acceptInvite: (token: string, name: string, password: string) =>
+      request<Me>('POST', '/auth/accept-invite', { token, name, password }),
+  },
+  admin: {
+    users: () => request<{ users: UserRow[] }>('GET', '/users'),
+    setRole: (id: string, role: Role) => request<unknown>('PATCH', `/users/${enc(id)}`, { role }),
+    removeUser: (id: string) => request<void>('DELETE', `/users/${enc(id)}`),
+    invite: (email: string, role: Role) => request<unknown>('POST', '/invites', { email, role }),
+    workspace: () => request<{ workspace: Workspace }>('GET', '/workspace'),
+    updateWorkspace: (patch: Partial<Workspace>) => request<unknown>('PATCH', '/workspace', patch),
+    inbox: () => request<{ messages: InboxSummary[] }>('GET', '/dev/inbox'),
+    inboxMessage: (id: string) => request<{ message: InboxMessage }>('GET', `/dev/inbox/${enc(id)}`),
+    audit: () => request<{ entries: AuditEntry[] }>('GET', '/audit'),
+  },
+  designs: {
+    list: (q = '', archived = false) =>
+      request<{ designs: DesignSummary[] }>('GET', `/designs${qs({ q, archived: archived || undefined })}`),
+    get: (id: string) => request<{ design: DesignDetail }>('GET', `/designs/${enc(id)}`),
+    create: (document: unknown) => request<{ design: DesignDetail }>('POST', '/designs', { document }),
+    revisions: (id: string) =>
+      request<{ revisions: RevisionSummary[] }>('GET', `/designs/${enc(id)}/revisions`),
+    revision: (id: string, rev: number) =>
+      request<{ revision: Revision }>('GET', `/designs/${enc(id)}/revisions/${rev}`),
+    saveRevision: (id: string, document: unknown, message?: string) =>
+      request<{ revision: Revision }>('POST', `/designs/${enc(id)}/revisions`, { document, message }),
+    archive: (id: string) => request<unknown>('POST', `/designs/${enc(id)}/archive`),
+  },
+  runs: {
+    list: (filter: { designId?: string; status?: string } = {}) =>
+      request<{ runs: RunSummary[] }>('GET', `/runs${qs(filter)}`),
+    get: (id: string) => request<{ run: RunDetail }>('GET', `/runs/${enc(id)}`),
+    launch: (launch: RunLaunch) => request<{ id: string }>('POST', '/runs', launch),
+    cancel: (id: string) => request<unknown>('POST', `/runs/${enc(id)}/cancel`),
+    results: (id: string) => request<RunResultsPayload>('GET', `/runs/${enc(id)}/results`),
+    exportCsv: (id: string) => requestText(`/runs/${enc(id)}/export.csv`),
+    csvUrl: (id: string) => `/api/runs/${enc(id)}/export.csv`,
+    jsonUrl: (id: string) => `/api/runs/${enc(id)}/export.json`,
+  },
+};

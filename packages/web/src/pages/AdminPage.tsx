@@ -1,0 +1,3 @@
+export function AdminPage() {
+  return <p>Coming in the next commit.</p>;
+}

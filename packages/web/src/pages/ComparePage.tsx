@@ -1,0 +1,3 @@
+export function ComparePage() {
+  return <p>Coming in the next commit.</p>;
+}

@@ -1,0 +1,3 @@
+export function DesignEditorPage() {
+  return <p>Coming in the next commit.</p>;
+}

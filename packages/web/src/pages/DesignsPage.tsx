@@ -1,0 +1,3 @@
+export function DesignsPage() {
+  return <p>Coming in the next commit.</p>;
+}

@@ -1,0 +1,3 @@
+export function ReportPage() {
+  return <p>Coming in the next commit.</p>;
+}

@@ -1,0 +1,3 @@
+export function RevisionPage() {
+  return <p>Coming in the next commit.</p>;
+}

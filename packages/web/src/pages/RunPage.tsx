@@ -1,0 +1,3 @@
+export function RunPage() {
+  return <p>Coming in the next commit.</p>;
+}

@@ -1,0 +1,3 @@
+export function RunsPage() {
+  return <p>Coming in the next commit.</p>;
+}

@@ -1,0 +1,96 @@
+import type { QueryClient } from '@tanstack/react-query';
+import { createBrowserRouter, redirect, type LoaderFunctionArgs } from 'react-router';
+import { authQueries } from './api/queries/authQueries.js';
+import { designQueries } from './api/queries/designQueries.js';
+import { runQueries } from './api/queries/runQueries.js';
+import { adminQueries } from './api/queries/adminQueries.js';
+import { AppLayout } from './components/AppLayout.js';
+import { RouteError } from './components/RouteError.js';
+import { SignInPage } from './pages/SignInPage.js';
+import { ForgotPage } from './pages/ForgotPage.js';
+import { ResetPage } from './pages/ResetPage.js';
+import { InviteAcceptPage } from './pages/InviteAcceptPage.js';
+import { DesignsPage } from './pages/DesignsPage.js';
+import { DesignEditorPage } from './pages/DesignEditorPage.js';
+import { RevisionPage } from './pages/RevisionPage.js';
+import { RunsPage } from './pages/RunsPage.js';
+import { RunPage } from './pages/RunPage.js';
+import { ReportPage } from './pages/ReportPage.js';
+import { ComparePage } from './pages/ComparePage.js';
+import { AdminPage } from './pages/AdminPage.js';
+
+/**
+ * Routes. Loaders only warm the query cache (`ensureQueryData`); pages read through `useQuery`, so
+ * a failed prefetch still renders the page with its own error state instead of a blank screen.
+ */
+export function createAppRouter(qc: QueryClient) {
+  const warm = (p: Promise<unknown>) => p.catch(() => undefined);
+
+  async function requireSession({ request }: LoaderFunctionArgs) {
+    const me = await qc.ensureQueryData(authQueries.me());
+    if (!me) {
+      const url = new URL(request.url);
+      throw redirect(`/signin?next=${encodeURIComponent(url.pathname + url.search)}`);
+    }
+    return null;
+  }
+
+  return createBrowserRouter([
+    { path: '/signin', element: <SignInPage />, errorElement: <RouteError /> },
+    { path: '/forgot', element: <ForgotPage />, errorElement: <RouteError /> },
+    { path: '/reset/:token', element: <ResetPage />, errorElement: <RouteError /> },
+    { path: '/invite/:token', element: <InviteAcceptPage />, errorElement: <RouteError /> },
+    {
+      path: '/',
+      element: <AppLayout />,
+      loader: requireSession,
+      errorElement: <RouteError />,
+      children: [
+        { index: true, loader: () => redirect('/designs') },
+        {
+          path: 'designs',
+          element: <DesignsPage />,
+          loader: async () => (await warm(qc.ensureQueryData(designQueries.list(''))), null),
+        },
+        { path: 'designs/new', element: <DesignEditorPage /> },
+        {
+          path: 'designs/:id',
+          element: <DesignEditorPage />,
+          loader: async ({ params }) => (
+            await warm(qc.ensureQueryData(designQueries.detail(params.id!))),
+            null
+          ),
+        },
+        {
+          path: 'designs/:id/revisions/:rev',
+          element: <RevisionPage />,
+          loader: async ({ params }) => (
+            await warm(qc.ensureQueryData(designQueries.revision(params.id!, Number(params.rev)))),
+            null
+          ),
+        },
+        {
+          path: 'runs',
+          element: <RunsPage />,
+          loader: async () => (await warm(qc.ensureQueryData(runQueries.list())), null),
+        },
+        {
+          path: 'runs/:id',
+          element: <RunPage />,
+          loader: async ({ params }) => (await warm(qc.ensureQueryData(runQueries.detail(params.id!))), null),
+        },
+        {
+          path: 'runs/:id/report',
+          element: <ReportPage />,
+          loader: async ({ params }) => (await warm(qc.ensureQueryData(runQueries.detail(params.id!))), null),
+        },
+        { path: 'compare', element: <ComparePage /> },
+        {
+          path: 'admin',
+          element: <AdminPage />,
+          loader: async () => (await warm(qc.ensureQueryData(adminQueries.users())), null),
+        },
+      ],
+    },
+  ]);
+}
