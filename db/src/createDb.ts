@@ -1,0 +1,15 @@
+import { Kysely, PostgresDialect } from 'kysely';
+import pg from 'pg';
+import type { Database } from './schema.js';
+
+/**
+ * A Kysely handle on the application database.
+ * @param url postgres://user@host:port/dbname
+ * @param options.max pool size (default 10)
+ */
+export function createDb(url: string, options: { max?: number } = {}): Kysely<Database> {
+  const pool = new pg.Pool({ connectionString: url, max: options.max ?? 10 });
+  // An idle client that loses its server (restart) must not crash the process.
+  pool.on('error', (err) => console.error('postgres pool error:', err.message));
+  return new Kysely<Database>({ dialect: new PostgresDialect({ pool }) });
+}

@@ -1,0 +1,152 @@
+import type { ColumnType, Generated, Insertable, Selectable, Updateable } from 'kysely';
+
+/** Roles per workspace. admin may do everything; viewer is read only. */
+export const ROLES = ['admin', 'engineer', 'production', 'viewer'] as const;
+export type Role = (typeof ROLES)[number];
+
+/** A jsonb column: read as T, written as a JSON string (pg would turn JS arrays into SQL arrays). */
+export type Json<T> = ColumnType<T, string, string>;
+/** A timestamptz column the database fills in. */
+export type CreatedAt = ColumnType<Date, Date | string | undefined, never>;
+export type Timestamp = ColumnType<Date, Date | string, Date | string>;
+export type NullableTimestamp = ColumnType<
+  Date | null,
+  Date | string | null | undefined,
+  Date | string | null
+>;
+
+/** Workspace-wide defaults used by the web app when a run is set up. */
+export interface WorkspaceSettings {
+  /** Default Monte Carlo sample count for a new run. */
+  defaultSamples: number;
+  /** Default sampling plan for a new run. */
+  defaultPlan: 'random' | 'lhs' | 'sobol';
+  /** Default yield target as a fraction (0.99 = 99 %), used by the tolerance plan search. */
+  defaultYieldTarget: number;
+}
+
+export interface WorkspacesTable {
+  id: Generated<string>;
+  name: string;
+  settings: Json<WorkspaceSettings>;
+  created_at: CreatedAt;
+}
+
+export interface UsersTable {
+  id: Generated<string>;
+  /** Stored lower-cased; unique. */
+  email: string;
+  name: string;
+  password_hash: string;
+  /** Bumped to invalidate every session token of the user (sign-out everywhere, password reset). */
+  session_epoch: Generated<number>;
+  created_at: CreatedAt;
+}
+
+export interface MembershipsTable {
+  user_id: string;
+  workspace_id: string;
+  role: Role;
+  created_at: CreatedAt;
+}
+
+export interface InvitesTable {
+  id: Generated<string>;
+  workspace_id: string;
+  email: string;
+  role: Role;
+  /** SHA-256 hex of the token sent by mail; the token itself is never stored. */
+  token_hash: string;
+  invited_by: string;
+  expires_at: Timestamp;
+  accepted_at: NullableTimestamp;
+  created_at: CreatedAt;
+}
+
+export interface PasswordResetsTable {
+  id: Generated<string>;
+  user_id: string;
+  /** SHA-256 hex of the token sent by mail. */
+  token_hash: string;
+  expires_at: Timestamp;
+  used_at: NullableTimestamp;
+  created_at: CreatedAt;
+}
+
+export interface DesignsTable {
+  id: Generated<string>;
+  workspace_id: string;
+  /** The latest revision's document name, kept here for listing and search. */
+  name: string;
+  created_by: string;
+  created_at: CreatedAt;
+  updated_at: ColumnType<Date, Date | string | undefined, Date | string>;
+  /** Highest revision number (1 after the first save). */
+  latest_rev: ColumnType<number, number | undefined, number>;
+  archived_at: NullableTimestamp;
+}
+
+/** Immutable: a database trigger refuses UPDATE on this table. */
+export interface DesignRevisionsTable {
+  id: Generated<string>;
+  design_id: string;
+  rev: number;
+  /** The design document as submitted (part values as entered, e.g. '4k7'). */
+  document: Json<unknown>;
+  message: string | null;
+  created_by: string;
+  created_at: CreatedAt;
+}
+
+/** Mail received by the local SMTP fake. */
+export interface DevMailTable {
+  id: Generated<string>;
+  mail_from: string;
+  mail_to: string;
+  subject: string;
+  text: string;
+  html: string | null;
+  received_at: CreatedAt;
+}
+
+export interface AuditEventsTable {
+  id: Generated<string>;
+  workspace_id: string | null;
+  user_id: string | null;
+  /** e.g. 'auth.login', 'invite.create', 'user.role', 'design.create'. */
+  action: string;
+  /** What was acted on, e.g. a design id or an email. */
+  target: string | null;
+  detail: Json<Record<string, unknown>>;
+  at: CreatedAt;
+}
+
+// ---- runs tables: the runs work adds its table types here (and its entries at the end of Database) ----
+
+// ---- end of runs tables ----
+
+/** Every table of the application database. */
+export interface Database {
+  workspaces: WorkspacesTable;
+  users: UsersTable;
+  memberships: MembershipsTable;
+  invites: InvitesTable;
+  password_resets: PasswordResetsTable;
+  designs: DesignsTable;
+  design_revisions: DesignRevisionsTable;
+  dev_mail: DevMailTable;
+  audit_events: AuditEventsTable;
+  // runs tables below
+}
+
+export type Workspace = Selectable<WorkspacesTable>;
+export type User = Selectable<UsersTable>;
+export type NewUser = Insertable<UsersTable>;
+export type UserUpdate = Updateable<UsersTable>;
+export type Membership = Selectable<MembershipsTable>;
+export type Invite = Selectable<InvitesTable>;
+export type PasswordReset = Selectable<PasswordResetsTable>;
+export type Design = Selectable<DesignsTable>;
+export type DesignRevision = Selectable<DesignRevisionsTable>;
+export type DevMail = Selectable<DevMailTable>;
+export type AuditEvent = Selectable<AuditEventsTable>;

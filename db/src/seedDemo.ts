@@ -1,0 +1,74 @@
+import bcrypt from 'bcryptjs';
+import { sql, type Kysely } from 'kysely';
+import { DEMO_DESIGNS } from './demoDesigns.js';
+import {
+  DEFAULT_WORKSPACE_SETTINGS,
+  DEMO_PASSWORD,
+  DEMO_USERS,
+  DEMO_WORKSPACE_NAME,
+} from './demoWorkspace.js';
+import type { Database } from './schema.js';
+
+/**
+ * Creates the demo workshop, its four users (one per role) and its demo designs. Idempotent: rows
+ * that exist already (matched by workspace name, email, design name) are left as they are, so it
+ * is safe to run on every start and never overwrites a password or design someone changed.
+ */
+export async function seedDemo(db: Kysely<Database>): Promise<{ workspaceId: string }> {
+  return db.transaction().execute(async (tx) => {
+    // Serialise concurrent seeders (two processes starting at once).
+    await sql`select pg_advisory_xact_lock(7204361)`.execute(tx);
+    let ws = await tx
+      .selectFrom('workspaces')
+      .select('id')
+      .where('name', '=', DEMO_WORKSPACE_NAME)
+      .executeTakeFirst();
+    ws ??= await tx
+      .insertInto('workspaces')
+      .values({ name: DEMO_WORKSPACE_NAME, settings: JSON.stringify(DEFAULT_WORKSPACE_SETTINGS) })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    const userIds: string[] = [];
+    for (const u of DEMO_USERS) {
+      let row = await tx.selectFrom('users').select('id').where('email', '=', u.email).executeTakeFirst();
+      row ??= await tx
+        .insertInto('users')
+        .values({ email: u.email, name: u.name, password_hash: await bcrypt.hash(DEMO_PASSWORD, 10) })
+        .returning('id')
+        .executeTakeFirstOrThrow();
+      await tx
+        .insertInto('memberships')
+        .values({ user_id: row.id, workspace_id: ws.id, role: u.role })
+        .onConflict((oc) => oc.columns(['user_id', 'workspace_id']).doNothing())
+        .execute();
+      userIds.push(row.id);
+    }
+    const author = userIds[1] ?? userIds[0];
+    for (const doc of DEMO_DESIGNS) {
+      const name = String(doc.name);
+      const found = await tx
+        .selectFrom('designs')
+        .select('id')
+        .where('workspace_id', '=', ws.id)
+        .where('name', '=', name)
+        .executeTakeFirst();
+      if (found) continue;
+      const design = await tx
+        .insertInto('designs')
+        .values({ workspace_id: ws.id, name, created_by: author, latest_rev: 1 })
+        .returning('id')
+        .executeTakeFirstOrThrow();
+      await tx
+        .insertInto('design_revisions')
+        .values({
+          design_id: design.id,
+          rev: 1,
+          document: JSON.stringify(doc),
+          message: 'Demo design',
+          created_by: author,
+        })
+        .execute();
+    }
+    return { workspaceId: ws.id };
+  });
+}

@@ -1,0 +1,39 @@
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import cookieParser from 'cookie-parser';
+import express from 'express';
+import type { AppDeps } from './appDeps.js';
+import { loadSession } from './auth/loadSession.js';
+import { apiRouters } from './apiRouters.js';
+import { apiNotFound, errorHandler } from './http/errorHandler.js';
+
+export type { AppDeps } from './appDeps.js';
+
+/**
+ * The whole HTTP app: every API router under /api (JSON errors), and the built web app with
+ * SPA fallback when config.webDist exists. Listening is left to the caller.
+ */
+export function createApp(deps: AppDeps): express.Express {
+  const app = express();
+  app.disable('x-powered-by');
+  // Rate limiting keys on req.ip; only the loopback proxy (if any) is trusted.
+  app.set('trust proxy', 'loopback');
+
+  const api = express.Router();
+  api.use(express.json({ limit: '2mb' }));
+  api.use(cookieParser());
+  api.use(loadSession(deps));
+  for (const router of apiRouters(deps)) api.use(router);
+  api.use(apiNotFound);
+  app.use('/api', api);
+
+  const dist = deps.config.webDist;
+  if (dist && existsSync(path.join(dist, 'index.html'))) {
+    app.use(express.static(dist, { index: false }));
+    // Client-side routes (e.g. /designs/123) get the SPA shell; /api never reaches here.
+    app.get(/^\/(?!api(\/|$)).*/, (_req, res) => res.sendFile(path.join(dist, 'index.html')));
+  }
+
+  app.use(errorHandler);
+  return app;
+}

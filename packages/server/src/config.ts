@@ -1,0 +1,28 @@
+/** Settings the app needs at run time; main.ts reads them from the environment. */
+export interface AppConfig {
+  /** HS256 key for session tokens (at least 32 bytes of entropy). */
+  secret: string;
+  /** Public base URL used in mailed links, e.g. http://127.0.0.1:3000 (no trailing slash). */
+  appUrl: string;
+  /** Session lifetime in seconds. */
+  sessionTtlSeconds: number;
+  /** Set the cookie's Secure flag (when served over https). */
+  cookieSecure: boolean;
+  /** Sender address of mail from the app. */
+  mailFrom: string;
+  /** Sign-in attempts allowed per IP + email within loginWindowMs. */
+  loginLimit: number;
+  loginWindowMs: number;
+  /** Built web app to serve (with SPA fallback); null or missing folder = API only. */
+  webDist: string | null;
+}
+
+export const DEFAULT_CONFIG: Omit<AppConfig, 'secret'> = {
+  appUrl: 'http://127.0.0.1:3000',
+  sessionTtlSeconds: 12 * 3600,
+  cookieSecure: false,
+  mailFrom: 'Sigmatail <no-reply@sigmatail.example>',
+  loginLimit: 10,
+  loginWindowMs: 15 * 60 * 1000,
+  webDist: null,
+};

@@ -1,0 +1,53 @@
+// Process entry: read env, migrate, optionally seed the demo, serve on 127.0.0.1:PORT.
+import { createDb, ensureDatabase, migrateToLatest, seedDemo } from '@sigmatail/db';
+import { createApp } from './app.js';
+import { createSmtpMailer } from './mail/mailer.js';
+import { startMailFake } from './mail/startMailFake.js';
+import { readEnvConfig } from './readEnvConfig.js';
+
+function fail(message: string): never {
+  console.error(message);
+  process.exit(1);
+}
+
+async function main(): Promise<void> {
+  let config;
+  try {
+    config = readEnvConfig();
+  } catch (err) {
+    fail((err as Error).message);
+  }
+  try {
+    await ensureDatabase(config.databaseUrl);
+  } catch (err) {
+    fail(`cannot reach PostgreSQL at ${config.databaseUrl}: ${(err as Error).message}`);
+  }
+  const db = createDb(config.databaseUrl);
+  await migrateToLatest(db);
+  if (process.env.SIGMATAIL_SEED_DEMO === '1') await seedDemo(db);
+  // SIGMATAIL_MAIL_FAKE=1 runs the SMTP fake in this process instead of `mailFakeMain`.
+  if (process.env.SIGMATAIL_MAIL_FAKE === '1') await startMailFake({ db, port: config.smtpPort });
+  const mailer = createSmtpMailer({ port: config.smtpPort, from: config.mailFrom });
+  const app = createApp({ db, mailer, config });
+
+  const server = app.listen(config.port, '127.0.0.1');
+  server.on('error', (err: NodeJS.ErrnoException) => {
+    if (err.code === 'EADDRINUSE') {
+      fail(`port ${config.port} is already in use — stop the other process or set PORT`);
+    }
+    fail(`cannot listen on port ${config.port}: ${err.message}`);
+  });
+  server.on('listening', () => console.log(`sigmatail server on http://127.0.0.1:${config.port}`));
+
+  const stop = (): void => {
+    server.close();
+    mailer.close();
+    void db.destroy().finally(() => process.exit(0));
+  };
+  process.once('SIGINT', stop);
+  process.once('SIGTERM', stop);
+}
+
+main().catch((err: unknown) =>
+  fail(`server failed to start: ${err instanceof Error ? err.message : String(err)}`),
+);
