@@ -1,0 +1,201 @@
+import type { Piscina } from 'piscina';
+import { ChunkQueue, type ClaimedChunk } from '../runs/chunkQueue.js';
+import type { Db } from '../runs/runsDb.js';
+import { RunWorkStore, type RunWorkContext } from '../runs/runWorkStore.js';
+import type { ChunkTask, MergeOutput, MergeTask } from './taskHandler.js';
+
+export type ChunkWorkerOptions = {
+  db: Db;
+  pool: Piscina;
+  /** Unique per process, e.g. host:pid:random; written on the chunks this worker leases. */
+  owner: string;
+  threads: number;
+  /** How long a lease lasts without a heartbeat; a killed worker's chunks return after this. */
+  leaseMs: number;
+  /** Fallback polling period when no notification arrives. */
+  pollMs: number;
+  maxAttempts?: number;
+  log?: (line: string) => void;
+  /** Called after each loop turn (sends pending notifications); errors are logged. */
+  housekeeping?: () => Promise<void>;
+};
+
+type InFlight = { chunk: ClaimedChunk; abort: AbortController };
+
+/**
+ * One worker process's loop: keeps its piscina pool busy with leased chunks, stores each result
+ * as it finishes, merges a run when its last chunk lands, heartbeats its leases, and aborts the
+ * tasks of runs that were cancelled or failed elsewhere.
+ */
+export class ChunkWorker {
+  private readonly queue: ChunkQueue;
+  private readonly store: RunWorkStore;
+  private readonly inFlight = new Map<string, InFlight>();
+  private readonly contexts = new Map<string, RunWorkContext>();
+  private readonly merges = new Set<Promise<void>>();
+  private stopped = false;
+  private wakeUp: (() => void) | undefined;
+  private heartbeatTimer: NodeJS.Timeout | undefined;
+  private loopDone: Promise<void> | undefined;
+  private readonly log: (line: string) => void;
+
+  constructor(private readonly o: ChunkWorkerOptions) {
+    this.queue = new ChunkQueue(o.db, o.owner, o.leaseMs, o.maxAttempts ?? 3);
+    this.store = new RunWorkStore(o.db);
+    this.log = o.log ?? (() => {});
+  }
+
+  start(): void {
+    this.heartbeatTimer = setInterval(() => void this.heartbeat(), Math.max(50, this.o.leaseMs / 3));
+    this.loopDone = this.loop();
+  }
+
+  /** Looks for work now (a run was launched) instead of at the next poll. */
+  wake(): void {
+    this.wakeUp?.();
+  }
+
+  /** A run changed state elsewhere (e.g. cancelled): check at once instead of at the next heartbeat. */
+  runChanged(): void {
+    void this.heartbeat();
+  }
+
+  /** Stops claiming, aborts running tasks and hands their chunks back at once. */
+  async stop(): Promise<void> {
+    this.stopped = true;
+    clearInterval(this.heartbeatTimer);
+    this.wake();
+    const held = [...this.inFlight.values()];
+    for (const f of held) f.abort.abort();
+    await Promise.allSettled(held.map((f) => this.queue.release(f.chunk.runId, f.chunk.chunkIndex, false)));
+    await this.loopDone;
+    await Promise.allSettled([...this.merges]);
+  }
+
+  private async loop(): Promise<void> {
+    while (!this.stopped) {
+      try {
+        await this.fill();
+        const orphan = await this.queue.claimOrphanMerge();
+        if (orphan) this.startMerge(orphan);
+        const failed = await this.queue.failExhausted();
+        for (const id of failed) this.log(`run ${id} failed: a chunk exhausted its attempts`);
+        await this.o.housekeeping?.();
+      } catch (err) {
+        this.log(`worker loop: ${(err as Error).message}`);
+      }
+      if (this.stopped) break;
+      await new Promise<void>((resolve) => {
+        const t = setTimeout(resolve, this.o.pollMs);
+        this.wakeUp = () => {
+          clearTimeout(t);
+          resolve();
+        };
+      });
+      this.wakeUp = undefined;
+    }
+  }
+
+  /** Two tasks per thread: one running, one queued, so no thread waits for a database round trip. */
+  private async fill(): Promise<void> {
+    const room = this.o.threads * 2 - this.inFlight.size;
+    if (room <= 0) return;
+    const claimed = await this.queue.claim(room);
+    for (const chunk of claimed) {
+      const abort = new AbortController();
+      this.inFlight.set(key(chunk), { chunk, abort });
+      void this.runOne(chunk, abort.signal);
+    }
+  }
+
+  private async runOne(chunk: ClaimedChunk, signal: AbortSignal): Promise<void> {
+    try {
+      const ctx = await this.context(chunk.runId);
+      const task: ChunkTask = {
+        kind: 'chunk',
+        runId: chunk.runId,
+        design: ctx.design,
+        plan: ctx.plan,
+        chunkIndex: chunk.chunkIndex,
+      };
+      const json = (await this.o.pool.run(task, { signal })) as string;
+      if (signal.aborted) return;
+      const d = await this.queue.deliver(chunk.runId, chunk.chunkIndex, json);
+      if (d.kind === 'stored' && d.mergeNow) this.startMerge(chunk.runId);
+    } catch (err) {
+      if (signal.aborted || this.stopped) return;
+      const message = (err as Error).message;
+      this.log(`run ${chunk.runId} chunk ${chunk.chunkIndex} attempt ${chunk.attempts}: ${message}`);
+      if (chunk.attempts >= (this.o.maxAttempts ?? 3)) {
+        await this.store.fail(chunk.runId, `chunk ${chunk.chunkIndex} failed: ${message}`).catch(() => false);
+      } else {
+        await this.queue.release(chunk.runId, chunk.chunkIndex, true).catch(() => undefined);
+      }
+    } finally {
+      this.inFlight.delete(key(chunk));
+      this.wake();
+    }
+  }
+
+  private startMerge(runId: string): void {
+    const p = this.merge(runId).finally(() => this.merges.delete(p));
+    this.merges.add(p);
+  }
+
+  private async merge(runId: string): Promise<void> {
+    try {
+      const ctx = await this.context(runId);
+      const chunks = await this.store.chunkTexts(runId);
+      const task: MergeTask = { kind: 'merge', runId, design: ctx.design, plan: ctx.plan, chunks };
+      const out = (await this.o.pool.run(task)) as MergeOutput;
+      const stored = await this.store.storeResults(runId, this.o.owner, out);
+      this.log(stored ? `run ${runId} done (${chunks.length} chunks)` : `run ${runId}: merge discarded`);
+    } catch (err) {
+      if (this.stopped) return;
+      this.log(`run ${runId} merge failed: ${(err as Error).message}`);
+      await this.store.fail(runId, `merge failed: ${(err as Error).message}`).catch(() => false);
+    } finally {
+      this.contexts.delete(runId);
+    }
+  }
+
+  private async context(runId: string): Promise<RunWorkContext> {
+    let ctx = this.contexts.get(runId);
+    if (!ctx) {
+      ctx = await this.store.context(runId);
+      if (!ctx) throw new Error(`run ${runId} not found`);
+      this.contexts.set(runId, ctx);
+    }
+    return ctx;
+  }
+
+  private heartbeating = false;
+  /** Renews leases and aborts the tasks of runs that are no longer active (cancelled, failed). */
+  private async heartbeat(): Promise<void> {
+    if (this.heartbeating || this.stopped) return;
+    this.heartbeating = true;
+    try {
+      const runIds = [...new Set([...this.inFlight.values()].map((f) => f.chunk.runId))];
+      const status = await this.queue.heartbeat(runIds);
+      for (const runId of runIds) {
+        const s = status.get(runId);
+        if (s === 'queued' || s === 'running') continue;
+        let n = 0;
+        for (const f of this.inFlight.values()) {
+          if (f.chunk.runId === runId && !f.abort.signal.aborted) {
+            f.abort.abort();
+            n++;
+          }
+        }
+        this.contexts.delete(runId);
+        if (n > 0) this.log(`run ${runId} ${s ?? 'deleted'}: aborted ${n} task(s)`);
+      }
+    } catch (err) {
+      this.log(`heartbeat: ${(err as Error).message}`);
+    } finally {
+      this.heartbeating = false;
+    }
+  }
+}
+
+const key = (c: ClaimedChunk) => `${c.runId}:${c.chunkIndex}`;

@@ -1,0 +1,22 @@
+/** The run parameters every chunk of a run shares (the engine's RunPlan). */
+export type JobPlan = {
+  samples: number;
+  seed: string;
+  plan: 'random' | 'lhs' | 'sobol';
+  chunkSize: number;
+  analyses?: { influence?: boolean; varianceIndices?: boolean; worstCase?: boolean };
+};
+
+/**
+ * The body of a run, defined once: what one chunk computes and how chunk results merge.
+ * Worker threads call it; tests call it directly, without the queue.
+ */
+export interface RunJob<Design = unknown, Chunk = unknown, Results = unknown> {
+  /** Turns the stored design document into what runChunk needs (parsed once per run per thread). */
+  prepare(document: unknown): Design;
+  runChunk(design: Design, plan: JobPlan, chunkIndex: number): Chunk;
+  /** Chunks arrive in chunk order. */
+  merge(design: Design, plan: JobPlan, chunks: Chunk[]): Results;
+  /** Scalar columns stored beside the results, for listing without reading the whole document. */
+  summarize(results: Results): { validCount: number | null; jointYield: number | null };
+}

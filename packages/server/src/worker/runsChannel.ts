@@ -1,0 +1,52 @@
+import pg from 'pg';
+import { sql } from 'kysely';
+import type { Db } from '../runs/runsDb.js';
+
+/** PostgreSQL NOTIFY channel that wakes workers (a run launched) and tells them of cancels. */
+export const RUNS_CHANNEL = 'sigmatail_runs';
+
+/** Tells every listening worker that `runId` was launched or changed state. */
+export async function notifyRuns(db: Db, event: 'launched' | 'changed', runId: string): Promise<void> {
+  await sql`select pg_notify(${RUNS_CHANNEL}, ${`${event}:${runId}`})`.execute(db);
+}
+
+/**
+ * Listens on the runs channel with its own connection, reconnecting after errors. Polling stays
+ * the fallback, so a lost notification only delays work by one poll period.
+ */
+export function listenRuns(
+  url: string,
+  onEvent: (event: string, runId: string) => void,
+  log: (line: string) => void,
+): { close: () => Promise<void> } {
+  let client: pg.Client | undefined;
+  let closed = false;
+  let retry: NodeJS.Timeout | undefined;
+  const connect = async () => {
+    const c = new pg.Client({ connectionString: url });
+    client = c;
+    c.on('notification', (m) => {
+      const [event = '', runId = ''] = (m.payload ?? '').split(':');
+      onEvent(event, runId);
+    });
+    c.on('error', (err) => {
+      log(`runs channel: ${err.message}`);
+      void c.end().catch(() => undefined);
+      if (!closed) retry = setTimeout(() => void connect().catch(() => undefined), 1000);
+    });
+    try {
+      await c.connect();
+      await c.query(`listen ${RUNS_CHANNEL}`);
+    } catch (err) {
+      c.emit('error', err);
+    }
+  };
+  void connect();
+  return {
+    close: async () => {
+      closed = true;
+      clearTimeout(retry);
+      await client?.end().catch(() => undefined);
+    },
+  };
+}

@@ -1,0 +1,56 @@
+import type { RunJob } from '../runJob.js';
+
+/**
+ * A trivial deterministic run body for queue and crash tests: chunk k hashes (seed, sample index)
+ * for each of its samples, so its result depends only on (seed, k) and every sample costs real
+ * CPU time. `document.spinPerSample` makes chunks slower.
+ */
+export type FakeChunk = { chunkIndex: number; count: number; sum: number; min: number; max: number };
+export type FakeResults = { chunks: number; count: number; sum: number; min: number; max: number };
+
+function hash32(x: number): number {
+  x = Math.imul(x ^ (x >>> 16), 0x7feb352d);
+  x = Math.imul(x ^ (x >>> 15), 0x846ca68b);
+  return (x ^ (x >>> 16)) >>> 0;
+}
+
+export const fakeJob: RunJob<{ spin: number }, FakeChunk, FakeResults> = {
+  prepare(document) {
+    const spin = (document as { spinPerSample?: number } | null)?.spinPerSample ?? 1;
+    return { spin };
+  },
+  runChunk(design, plan, chunkIndex) {
+    let seedHash = 0;
+    for (const ch of plan.seed) seedHash = hash32(seedHash ^ ch.charCodeAt(0));
+    const start = chunkIndex * plan.chunkSize;
+    const end = Math.min(plan.samples, start + plan.chunkSize);
+    let sum = 0;
+    let min = Infinity;
+    let max = -Infinity;
+    for (let s = start; s < end; s++) {
+      let h = seedHash ^ s;
+      for (let i = 0; i < design.spin; i++) h = hash32(h + i);
+      const u = h / 4294967296;
+      sum += u;
+      if (u < min) min = u;
+      if (u > max) max = u;
+    }
+    return { chunkIndex, count: end - start, sum, min, max };
+  },
+  merge(_design, _plan, chunks) {
+    let sum = 0;
+    let count = 0;
+    let min = Infinity;
+    let max = -Infinity;
+    for (const c of chunks) {
+      sum += c.sum;
+      count += c.count;
+      min = Math.min(min, c.min);
+      max = Math.max(max, c.max);
+    }
+    return { chunks: chunks.length, count, sum, min, max };
+  },
+  summarize(results) {
+    return { validCount: results.count, jointYield: null };
+  },
+};
