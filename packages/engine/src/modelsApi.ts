@@ -1,1 +1,15 @@
-export {};
+// Models barrel: values, tube catalog and triode model, bias point, small signal, design format.
+export * from './values/parseValue.js';
+export * from './values/formatValue.js';
+export * from './values/toleranceLetters.js';
+export * from './tubes/tubeTypes.js';
+export * from './tubes/korenTriode.js';
+export * from './tubes/tubeCatalog.js';
+export * from './model/metrics.js';
+export * from './model/biasSolver.js';
+export * from './model/closedFormGains.js';
+export * from './model/reducedNodalGains.js';
+export * from './model/stageEvaluator.js';
+export { INPUTS, createStageKernel, type InputId, type StageKernel } from './model/stageKernel.js';
+export * from './design/designSchema.js';
+export * from './design/parseDesign.js';

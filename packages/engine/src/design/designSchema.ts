@@ -1,0 +1,127 @@
+import { z } from 'zod';
+import { TUBE_TYPES } from '../tubes/tubeTypes.js';
+import { METRIC_IDS } from '../model/metrics.js';
+import { parseValue } from '../values/parseValue.js';
+
+const finite = () => z.number().refine(Number.isFinite, 'must be a finite number');
+const spreadK = finite().positive().optional();
+
+/** A spread (distribution) of a part value around nominal; tolerance = k·σ where it applies. */
+export const spreadSchema = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('normal'), k: spreadK }),
+  z.object({ kind: z.literal('uniform') }),
+  z.object({ kind: z.literal('truncnormal'), k: spreadK }),
+  z.object({ kind: z.literal('binned'), inner: finite().min(0).lt(100), k: spreadK }),
+  z.object({ kind: z.literal('lognormal'), k: spreadK }),
+  z.object({ kind: z.literal('fixed') }),
+  z.object({ kind: z.literal('empirical'), values: z.array(finite().positive()).min(1) }),
+]);
+
+const partValue = z.union([
+  finite().positive('must be a positive number of ohms'),
+  z.string().refine((s) => parseValue(s, 'resistance').ok, {
+    message: 'not a resistance (use ohms, engineering notation like 2.2k, or an RKM code like 4k7)',
+  }),
+]);
+
+/** A toleranced resistor: value in ohms or as text, tolerance in percent (0 ≤ t < 100). */
+export const partSchema = z.object({
+  value: partValue,
+  tolerance: finite().min(0).lt(100, 'must be below 100 %'),
+  spread: spreadSchema,
+});
+
+/** How the two sections of one envelope vary (percent, 1σ) and how they are paired. */
+export const tubeSpreadSchema = z.object({
+  perveanceSd: finite().min(0).lt(100),
+  muSd: finite().min(0).lt(100),
+  sectionCorrelation: finite().min(0).max(1),
+  pairing: z.object({ quantity: z.enum(['ia', 'gm', 'mu']), within: finite().positive().lt(100) }).optional(),
+});
+
+/** A limit on one metric; at least one of min and max. */
+export const specSchema = z
+  .object({
+    metric: z.enum(METRIC_IDS),
+    min: finite().optional(),
+    max: finite().optional(),
+    label: z.string().optional(),
+  })
+  .refine((s) => s.min !== undefined || s.max !== undefined, {
+    message: 'a spec needs min or max',
+    path: ['min'],
+  })
+  .refine((s) => s.min === undefined || s.max === undefined || s.min <= s.max, {
+    message: 'min must not exceed max',
+    path: ['max'],
+  });
+
+/**
+ * The versioned design document (format 'sigmatail-design', version 1): topology, supplies,
+ * grid drive (direct-coupled), tube type and spread, toleranced parts and specs. Volts, ohms, percent.
+ *
+ * @example
+ * designSchema.safeParse(JSON.parse(text)).success;
+ */
+export const designSchema = z
+  .object({
+    format: z.literal('sigmatail-design'),
+    version: z.literal(1),
+    name: z.string().min(1),
+    notes: z.string().optional(),
+    topology: z.enum(['cap-coupled', 'direct-coupled']),
+    supply: z.object({
+      bPlus: finite().positive(),
+      tail: finite().max(0, 'tail supply must be 0 (Rt to ground) or negative'),
+      /** Heater potential to ground in volts; 0 (grounded heater winding) when absent. */
+      heater: finite().optional(),
+    }),
+    drive: z
+      .object({
+        grid1Dc: finite(),
+        grid2: z.discriminatedUnion('mode', [
+          z.object({ mode: z.literal('fixed'), dc: finite() }),
+          z.object({ mode: z.literal('leak-to-grid1') }),
+        ]),
+      })
+      .optional(),
+    tube: z.object({ type: z.enum(TUBE_TYPES), spread: tubeSpreadSchema }),
+    parts: z.object({
+      rl1: partSchema,
+      rl2: partSchema,
+      rk: partSchema,
+      rt: partSchema,
+      rg1: partSchema,
+      rg2: partSchema,
+      rload1: partSchema.optional(),
+      rload2: partSchema.optional(),
+      rsource: partSchema.optional(),
+    }),
+    specs: z.array(specSchema),
+  })
+  .refine((d) => d.topology !== 'direct-coupled' || d.drive !== undefined, {
+    message: 'a direct-coupled design needs drive (grid1Dc and grid2)',
+    path: ['drive'],
+  });
+
+/** The design document as written (part values may be text). */
+export type Design = z.infer<typeof designSchema>;
+/** One toleranced part as written. */
+export type Part = z.infer<typeof partSchema>;
+/** A part value spread. */
+export type Spread = z.infer<typeof spreadSchema>;
+/** Tube spread and pairing. */
+export type TubeSpread = z.infer<typeof tubeSpreadSchema>;
+/** A limit on a metric. */
+export type Spec = z.infer<typeof specSchema>;
+/** Part names in the design's `parts` object. */
+export type PartName = keyof Design['parts'];
+
+/** A part with its value resolved to ohms. */
+export type ResolvedPart = Omit<Part, 'value'> & { value: number };
+/** The design with every part value resolved to a number of ohms. */
+export type ResolvedDesign = Omit<Design, 'parts'> & {
+  parts: {
+    [K in keyof Design['parts']]: Design['parts'][K] extends Part ? ResolvedPart : ResolvedPart | undefined;
+  };
+};

@@ -1,0 +1,186 @@
+import { korenPointInto, type KorenParams, type TriodePoint } from '../tubes/korenTriode.js';
+
+/** Why a bias point is not usable. 'ok' means a valid point was found. */
+export type BiasStatus = 'ok' | 'supply-too-low' | 'cut-off' | 'grid-current' | 'no-convergence';
+
+/** The DC circuit for one sample (volts, ohms; multipliers dimensionless). */
+export interface BiasCircuit {
+  /** true: both grids returned to J (Vg = VJ); false: grids at fixed DC voltages vg1, vg2. */
+  capCoupled: boolean;
+  bPlus: number;
+  /** Bottom of Rt (V): 0 or a negative tail supply. */
+  tail: number;
+  /** Grid DC voltages to ground, direct-coupled only (V). */
+  vg1: number;
+  vg2: number;
+  rl1: number;
+  rl2: number;
+  rk: number;
+  rt: number;
+  tube: KorenParams;
+  /** Plate-current scale and mu multipliers per section (nominal 1). */
+  perv1: number;
+  perv2: number;
+  muScale1: number;
+  muScale2: number;
+}
+
+/** Solved bias point, written in place (A, V, S). `ga` is 1/rp. */
+export interface BiasPoint {
+  status: BiasStatus;
+  ia1: number;
+  ia2: number;
+  va1: number;
+  va2: number;
+  vk: number;
+  vj: number;
+  vgk1: number;
+  vgk2: number;
+  gm1: number;
+  gm2: number;
+  ga1: number;
+  ga2: number;
+  iterations: number;
+}
+
+/** Below this plate current (A) a section counts as cut off (common practice, no source). */
+export const CUTOFF_CURRENT = 1e-6;
+/** Grid-to-cathode voltage above which grid current flows and the model no longer holds (V). */
+export const GRID_CURRENT_VGK = 0;
+
+/**
+ * A fresh, empty bias point to pass to {@link solveBiasInto}.
+ *
+ * @example
+ * const bp = createBiasPoint();
+ */
+export function createBiasPoint(): BiasPoint {
+  return {
+    status: 'no-convergence',
+    ...{ ia1: 0, ia2: 0, va1: 0, va2: 0, vk: 0, vj: 0, vgk1: 0, vgk2: 0 },
+    ...{ gm1: 0, gm2: 0, ga1: 0, ga2: 0, iterations: 0 },
+  };
+}
+
+const p1: TriodePoint = { ia: 0, gm: 0, ga: 0 };
+const p2: TriodePoint = { ia: 0, gm: 0, ga: 0 };
+
+/** Evaluates both sections at (ia1, ia2) into p1, p2 and the voltages into bp. */
+function evalAt(c: BiasCircuit, ia1: number, ia2: number, bp: BiasPoint): void {
+  const i = ia1 + ia2;
+  const vj = c.tail + i * c.rt;
+  const vk = vj + i * c.rk;
+  const vg1 = c.capCoupled ? vj : c.vg1;
+  const vg2 = c.capCoupled ? vj : c.vg2;
+  bp.vj = vj;
+  bp.vk = vk;
+  bp.va1 = c.bPlus - ia1 * c.rl1;
+  bp.va2 = c.bPlus - ia2 * c.rl2;
+  bp.vgk1 = vg1 - vk;
+  bp.vgk2 = vg2 - vk;
+  korenPointInto(c.tube, bp.va1 - vk, bp.vgk1, c.perv1, c.muScale1, p1);
+  korenPointInto(c.tube, bp.va2 - vk, bp.vgk2, c.perv2, c.muScale2, p2);
+}
+
+/**
+ * Solves the DC operating point for both plate currents at once: grid currents are zero, so
+ * F_i(Ia1, Ia2) = Ia_i − Ip_i(Va_i − Vk, Vgk_i) = 0 with Vk = tail + (Ia1 + Ia2)·(Rk + Rt).
+ * Damped Newton on the 2×2 system (analytic Jacobian from gm and 1/rp), started from `bp`'s
+ * currents when `warm` is set; if Newton stalls, a nested bisection (each F_i is monotone in its own
+ * current, so the brackets [0, Imax] always hold a root) finds the point. Writes into `bp`,
+ * allocates nothing, and returns the status; a non-'ok' status names why there is no valid bias.
+ *
+ * @example
+ * const bp = createBiasPoint();
+ * solveBiasInto(circuit, bp, false); // 'ok'; bp.ia1 ≈ 0.9e-3 A for a 12AX7 splitter
+ */
+export function solveBiasInto(c: BiasCircuit, bp: BiasPoint, warm: boolean): BiasStatus {
+  const span = c.bPlus - c.tail;
+  if (!(span > 0) || !(c.bPlus > 0)) return finish(c, bp, 'supply-too-low', 0);
+  const rkk = c.rk + c.rt;
+  const rg = c.capCoupled ? c.rk : rkk;
+  const max1 = span / (c.rl1 + rkk);
+  const max2 = span / (c.rl2 + rkk);
+  let x1 = warm && bp.ia1 > 0 && bp.ia1 < max1 ? bp.ia1 : 0.3 * max1;
+  let x2 = warm && bp.ia2 > 0 && bp.ia2 < max2 ? bp.ia2 : 0.3 * max2;
+  for (let it = 1; it <= 40; it++) {
+    evalAt(c, x1, x2, bp);
+    const f1 = x1 - p1.ia;
+    const f2 = x2 - p2.ia;
+    const j11 = 1 + p1.ga * (c.rl1 + rkk) + p1.gm * rg;
+    const j12 = p1.ga * rkk + p1.gm * rg;
+    const j21 = p2.ga * rkk + p2.gm * rg;
+    const j22 = 1 + p2.ga * (c.rl2 + rkk) + p2.gm * rg;
+    const det = j11 * j22 - j12 * j21;
+    let d1 = (f1 * j22 - f2 * j12) / det;
+    let d2 = (j11 * f2 - j21 * f1) / det;
+    // Keep the iterate inside the physical box: halve the way to a bound instead of crossing it.
+    let n1 = x1 - d1;
+    let n2 = x2 - d2;
+    if (n1 < 0) n1 = 0.5 * x1;
+    else if (n1 > max1) n1 = 0.5 * (x1 + max1);
+    if (n2 < 0) n2 = 0.5 * x2;
+    else if (n2 > max2) n2 = 0.5 * (x2 + max2);
+    d1 = n1 - x1;
+    d2 = n2 - x2;
+    x1 = n1;
+    x2 = n2;
+    if (Math.abs(d1) <= 1e-12 * x1 + 1e-16 && Math.abs(d2) <= 1e-12 * x2 + 1e-16) {
+      evalAt(c, x1, x2, bp);
+      return finish(c, bp, classify(bp, x1, x2), it);
+    }
+  }
+  return bisect(c, bp, max1, max2);
+}
+
+/** Ia1 that zeroes F1 for a given Ia2 (F1 increases with Ia1). */
+function innerIa1(c: BiasCircuit, bp: BiasPoint, ia2: number, max1: number): number {
+  let lo = 0;
+  let hi = max1;
+  for (let k = 0; k < 80 && hi - lo > 1e-15 * hi; k++) {
+    const m = 0.5 * (lo + hi);
+    evalAt(c, m, ia2, bp);
+    if (m - p1.ia > 0) hi = m;
+    else lo = m;
+  }
+  return 0.5 * (lo + hi);
+}
+
+function bisect(c: BiasCircuit, bp: BiasPoint, max1: number, max2: number): BiasStatus {
+  let lo = 0;
+  let hi = max2;
+  for (let k = 0; k < 80 && hi - lo > 1e-15 * hi; k++) {
+    const m = 0.5 * (lo + hi);
+    const x1 = innerIa1(c, bp, m, max1);
+    evalAt(c, x1, m, bp);
+    if (m - p2.ia > 0) hi = m;
+    else lo = m;
+  }
+  const x2 = 0.5 * (lo + hi);
+  const x1 = innerIa1(c, bp, x2, max1);
+  evalAt(c, x1, x2, bp);
+  const ok = Math.abs(x1 - p1.ia) <= 1e-9 * (x1 + 1e-9) && Math.abs(x2 - p2.ia) <= 1e-9 * (x2 + 1e-9);
+  return finish(c, bp, ok ? classify(bp, x1, x2) : 'no-convergence', 999);
+}
+
+function classify(bp: BiasPoint, x1: number, x2: number): BiasStatus {
+  if (bp.vgk1 > GRID_CURRENT_VGK || bp.vgk2 > GRID_CURRENT_VGK) return 'grid-current';
+  if (x1 < CUTOFF_CURRENT || x2 < CUTOFF_CURRENT) return 'cut-off';
+  return 'ok';
+}
+
+function finish(_c: BiasCircuit, bp: BiasPoint, status: BiasStatus, it: number): BiasStatus {
+  bp.status = status;
+  bp.iterations = it;
+  if (status === 'supply-too-low') {
+    bp.ia1 = bp.ia2 = bp.gm1 = bp.gm2 = bp.ga1 = bp.ga2 = Number.NaN;
+    return status;
+  }
+  bp.ia1 = p1.ia;
+  bp.ia2 = p2.ia;
+  bp.gm1 = p1.gm;
+  bp.gm2 = p2.gm;
+  bp.ga1 = p1.ga;
+  bp.ga2 = p2.ga;
+  return status;
+}

@@ -1,0 +1,60 @@
+/** Midband gains and output impedances of the pair (dimensionless, Ω). */
+export interface StageGains {
+  a11: number;
+  a12: number;
+  a21: number;
+  a22: number;
+  zout1: number;
+  zout2: number;
+  /** Input impedance at grid 1 (Ω); Infinity when nothing loads the grid. */
+  zin: number;
+}
+
+/**
+ * Creates a zeroed {@link StageGains} to fill in place.
+ *
+ * @example
+ * const g = createStageGains();
+ */
+export function createStageGains(): StageGains {
+  return { a11: 0, a12: 0, a21: 0, a22: 0, zout1: 0, zout2: 0, zin: 0 };
+}
+
+/**
+ * Closed-form midband gains of the ideal pair (grid leaks, external loads and source resistance
+ * ignored; triode = mu·vgk source behind rp). From the node equations with Ri = RLi + rpi and
+ * RK = Rk + Rt (the bias resistor is unbypassed, so the whole Rk + Rt is the cathode's AC path):
+ *   D   = 1/RK + (mu1+1)/R1 + (mu2+1)/R2
+ *   A11 = −(RL1/R1)·(mu1 − (mu1+1)·(mu1/R1)/D)      A12 = mu1·(mu2+1)·RL2/(R1·R2·D)
+ *   A21 = mu2·(mu1+1)·RL1/(R1·R2·D)                 A22 = −(RL2/R2)·(mu2 − (mu2+1)·(mu2/R2)/D)
+ *   Zout1 = RL1 ∥ (rp1 + (mu1+1)/(1/RK + (mu2+1)/R2))
+ * Writes into `out` (no allocation) and returns it. Ohms in.
+ *
+ * @example
+ * closedFormGainsInto(100, 100, 62.5e3, 62.5e3, 100e3, 100e3, 11e3, createStageGains()).a11; // ≈ −29
+ */
+export function closedFormGainsInto(
+  mu1: number,
+  mu2: number,
+  rp1: number,
+  rp2: number,
+  rl1: number,
+  rl2: number,
+  rkTotal: number,
+  out: StageGains,
+): StageGains {
+  const r1 = rl1 + rp1;
+  const r2 = rl2 + rp2;
+  const gK = 1 / rkTotal;
+  const d = gK + (mu1 + 1) / r1 + (mu2 + 1) / r2;
+  out.a11 = -(rl1 / r1) * (mu1 - ((mu1 + 1) * (mu1 / r1)) / d);
+  out.a12 = (mu1 * (mu2 + 1) * rl2) / (r1 * r2 * d);
+  out.a21 = (mu2 * (mu1 + 1) * rl1) / (r1 * r2 * d);
+  out.a22 = -(rl2 / r2) * (mu2 - ((mu2 + 1) * (mu2 / r2)) / d);
+  const zp1 = rp1 + (mu1 + 1) / (gK + (mu2 + 1) / r2);
+  const zp2 = rp2 + (mu2 + 1) / (gK + (mu1 + 1) / r1);
+  out.zout1 = (rl1 * zp1) / (rl1 + zp1);
+  out.zout2 = (rl2 * zp2) / (rl2 + zp2);
+  out.zin = Number.POSITIVE_INFINITY;
+  return out;
+}

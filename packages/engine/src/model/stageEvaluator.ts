@@ -1,0 +1,151 @@
+import type { ResolvedDesign } from '../design/designSchema.js';
+import { TUBE_CATALOG, type TubeSpec } from '../tubes/tubeCatalog.js';
+import { createBiasPoint, solveBiasInto, type BiasCircuit, type BiasPoint } from './biasSolver.js';
+import { closedFormGainsInto, createStageGains, type StageGains } from './closedFormGains.js';
+import { reducedNodalGainsInto, type SmallSignalCircuit } from './reducedNodalGains.js';
+
+/** Per-sample values of the kernel inputs (Ω; multipliers dimensionless). Same names as INPUTS. */
+export interface StageInputs {
+  rl1: number;
+  rl2: number;
+  rk: number;
+  rt: number;
+  rg1: number;
+  rg2: number;
+  rload1: number;
+  rload2: number;
+  rsource: number;
+  mu1: number;
+  mu2: number;
+  perv1: number;
+  perv2: number;
+}
+
+/** Reusable per-design state: the circuit templates and scratch results (allocated once). */
+export interface StageContext {
+  tube: TubeSpec;
+  bias: BiasCircuit;
+  bp: BiasPoint;
+  ss: SmallSignalCircuit;
+  gains: StageGains;
+  /** Heater potential to ground (V). */
+  heater: number;
+  /** true when grid leaks, loads and source resistance are absent, so the closed form is exact. */
+  closedForm: boolean;
+}
+
+/**
+ * Nominal kernel inputs of a design: part values in ohms, absent loads = Infinity,
+ * absent source resistance = 0, tube multipliers 1.
+ *
+ * @example
+ * nominalStageInputs(design).rl1; // 100000
+ */
+export function nominalStageInputs(d: ResolvedDesign): StageInputs {
+  const p = d.parts;
+  return {
+    ...{
+      rl1: p.rl1.value,
+      rl2: p.rl2.value,
+      rk: p.rk.value,
+      rt: p.rt.value,
+      rg1: p.rg1.value,
+      rg2: p.rg2.value,
+    },
+    rload1: p.rload1?.value ?? Number.POSITIVE_INFINITY,
+    rload2: p.rload2?.value ?? Number.POSITIVE_INFINITY,
+    rsource: p.rsource?.value ?? 0,
+    ...{ mu1: 1, mu2: 1, perv1: 1, perv2: 1 },
+  };
+}
+
+/**
+ * Builds the reusable evaluation context of a design.
+ *
+ * @example
+ * const ctx = createStageContext(design);
+ */
+export function createStageContext(d: ResolvedDesign): StageContext {
+  const tube = TUBE_CATALOG[d.tube.type];
+  const cap = d.topology === 'cap-coupled';
+  const g1 = cap ? 0 : (d.drive?.grid1Dc ?? 0);
+  const grid2 = d.drive?.grid2;
+  const g2 = cap ? 0 : grid2?.mode === 'fixed' ? grid2.dc : g1;
+  const nominal = nominalStageInputs(d);
+  const bias: BiasCircuit = {
+    ...{ capCoupled: cap, bPlus: d.supply.bPlus, tail: d.supply.tail, vg1: g1, vg2: g2 },
+    ...{ rl1: 0, rl2: 0, rk: 0, rt: 0, tube: tube.model, perv1: 1, perv2: 1, muScale1: 1, muScale2: 1 },
+  };
+  const ss: SmallSignalCircuit = {
+    ...{ capCoupled: cap, leakToGrid1: !cap && grid2?.mode === 'leak-to-grid1' },
+    ...{ mu1: 0, mu2: 0, rp1: 0, rp2: 0, rl1: 0, rl2: 0, rk: 0, rt: 0, rg1: 0, rg2: 0 },
+    ...{ rload1: Number.POSITIVE_INFINITY, rload2: Number.POSITIVE_INFINITY, rsource: 0 },
+  };
+  const closedForm =
+    !cap &&
+    !ss.leakToGrid1 &&
+    nominal.rload1 === Number.POSITIVE_INFINITY &&
+    nominal.rload2 === Number.POSITIVE_INFINITY &&
+    nominal.rsource === 0;
+  return {
+    tube,
+    bias,
+    bp: createBiasPoint(),
+    ss,
+    gains: createStageGains(),
+    heater: d.supply.heater ?? 0,
+    closedForm,
+  };
+}
+
+/**
+ * Solves the bias point of one sample into ctx.bp (warm-started from ctx.bp when `warm`).
+ *
+ * @example
+ * solveStageBias(ctx, nominalStageInputs(design), false); // 'ok'
+ */
+export function solveStageBias(ctx: StageContext, x: StageInputs, warm: boolean): BiasPoint['status'] {
+  const b = ctx.bias;
+  b.rl1 = x.rl1;
+  b.rl2 = x.rl2;
+  b.rk = x.rk;
+  b.rt = x.rt;
+  b.perv1 = x.perv1;
+  b.perv2 = x.perv2;
+  b.muScale1 = x.mu1;
+  b.muScale2 = x.mu2;
+  return solveBiasInto(b, ctx.bp, warm);
+}
+
+/**
+ * Small-signal gains of one sample from section parameters mu, rp (Ω) into ctx.gains: the closed
+ * form when it is exact for this design, else the hand-reduced nodal solve.
+ *
+ * @example
+ * stageGains(ctx, x, 95, 95, 60e3, 60e3).a11;
+ */
+export function stageGains(
+  ctx: StageContext,
+  x: StageInputs,
+  mu1: number,
+  mu2: number,
+  rp1: number,
+  rp2: number,
+): StageGains {
+  if (ctx.closedForm) return closedFormGainsInto(mu1, mu2, rp1, rp2, x.rl1, x.rl2, x.rk + x.rt, ctx.gains);
+  const s = ctx.ss;
+  s.mu1 = mu1;
+  s.mu2 = mu2;
+  s.rp1 = rp1;
+  s.rp2 = rp2;
+  s.rl1 = x.rl1;
+  s.rl2 = x.rl2;
+  s.rk = x.rk;
+  s.rt = x.rt;
+  s.rg1 = x.rg1;
+  s.rg2 = x.rg2;
+  s.rload1 = x.rload1;
+  s.rload2 = x.rload2;
+  s.rsource = x.rsource;
+  return reducedNodalGainsInto(s, ctx.gains);
+}

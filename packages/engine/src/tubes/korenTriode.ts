@@ -1,0 +1,105 @@
+/**
+ * Parameters of the triode plate-current model of N. Koren, "Improved VT models for SPICE
+ * simulations" (Glass Audio, 1996).
+ */
+export interface KorenParams {
+  /** Amplification factor (dimensionless). */
+  mu: number;
+  /** Exponent of the current law (dimensionless, about 1.3–1.4). */
+  ex: number;
+  /** Current scale (V^ex / A): larger kg1 means less current. */
+  kg1: number;
+  /** Softplus sharpness near cut-off (dimensionless). */
+  kp: number;
+  /** Knee of the plate-voltage dependence of mu (V²). */
+  kvb: number;
+}
+
+/** Plate current and its partial derivatives at one (Vpk, Vgk). */
+export interface TriodePoint {
+  /** Plate current (A). */
+  ia: number;
+  /** ∂Ia/∂Vgk, transconductance (S). */
+  gm: number;
+  /** ∂Ia/∂Vpk, plate conductance (S) = 1/rp. */
+  ga: number;
+}
+
+/**
+ * Plate current (A) of one triode section, Koren 1996:
+ *   E1 = (Ep/kp)·ln(1 + exp(kp·(1/mu + Eg/sqrt(kvb + Ep²))))
+ *   Ip = (E1^ex / kg1)·(1 + sgn(E1))
+ * The (1 + sgn) factor is kept as published: for E1 > 0 it doubles the current, Ip = 2·E1^ex/kg1.
+ * The published parameter sets were fitted with the SPICE form of that expression,
+ * (pwr(E1,ex) + pwrs(E1,ex))/kg1, which is the same factor 2, so the catalog parameters assume it
+ * (checked against each datasheet typical point in tubeCatalog.test.ts).
+ * `scale` multiplies the current (perveance spread); `muScale` multiplies mu.
+ * No grid current is modelled; callers flag Vgk > 0.
+ *
+ * @example
+ * korenCurrent(KOREN_12AX7, 250, -2); // ≈ 1.0e-3 A
+ */
+export function korenCurrent(p: KorenParams, vpk: number, vgk: number, scale = 1, muScale = 1): number {
+  if (vpk <= 0) return 0;
+  const s = Math.sqrt(p.kvb + vpk * vpk);
+  const u = p.kp * (1 / (p.mu * muScale) + vgk / s);
+  const e1 = (vpk / p.kp) * softplus(u);
+  if (e1 <= 0) return 0;
+  return (scale * 2 * Math.pow(e1, p.ex)) / p.kg1;
+}
+
+/** ln(1 + e^u) without overflow for large u or loss for very negative u. */
+export function softplus(u: number): number {
+  return u > 30 ? u : u < -30 ? Math.exp(u) : Math.log1p(Math.exp(u));
+}
+
+/**
+ * Plate current with analytic partial derivatives (gm = ∂Ia/∂Vgk, ga = ∂Ia/∂Vpk = 1/rp), written
+ * into `out` so hot loops allocate nothing. Volts in, amperes and siemens out.
+ *
+ * @example
+ * const pt = { ia: 0, gm: 0, ga: 0 };
+ * korenPointInto(KOREN_12AX7, 250, -2, 1, 1, pt); // pt.gm ≈ 1.6e-3 S
+ */
+export function korenPointInto(
+  p: KorenParams,
+  vpk: number,
+  vgk: number,
+  scale: number,
+  muScale: number,
+  out: TriodePoint,
+): TriodePoint {
+  if (vpk <= 0) {
+    out.ia = 0;
+    out.gm = 0;
+    out.ga = 0;
+    return out;
+  }
+  const kp = p.kp;
+  const s = Math.sqrt(p.kvb + vpk * vpk);
+  const u = kp * (1 / (p.mu * muScale) + vgk / s);
+  let L: number;
+  let sig: number;
+  if (u > 30) {
+    L = u;
+    sig = 1;
+  } else {
+    const eu = Math.exp(u);
+    L = u < -30 ? eu : Math.log1p(eu);
+    sig = eu / (1 + eu);
+  }
+  const e1 = (vpk / kp) * L;
+  if (!(e1 > 0)) {
+    out.ia = 0;
+    out.gm = 0;
+    out.ga = 0;
+    return out;
+  }
+  const k = (scale * 2) / p.kg1;
+  const pw = Math.pow(e1, p.ex - 1);
+  const dIdE = k * p.ex * pw;
+  out.ia = k * pw * e1;
+  out.gm = dIdE * ((vpk * sig) / s);
+  out.ga = dIdE * (L / kp - (vpk * vpk * vgk * sig) / (s * s * s));
+  return out;
+}
