@@ -123,6 +123,64 @@ export interface AuditEventsTable {
 
 // ---- runs tables: the runs work adds its table types here (and its entries at the end of Database) ----
 
+export type RunStatus = 'queued' | 'running' | 'merging' | 'done' | 'failed' | 'cancelled';
+export type RunPlanKind = 'random' | 'lhs' | 'sobol';
+
+/** One analysis of one design revision; the row is also the run's progress counter. */
+export interface RunsTable {
+  id: Generated<string>;
+  workspace_id: string;
+  design_id: string;
+  revision: number;
+  created_by: string;
+  status: ColumnType<RunStatus, RunStatus | undefined, RunStatus>;
+  samples: number;
+  seed: string;
+  plan: RunPlanKind;
+  chunk_size: number;
+  analyses: Json<{ influence?: boolean; varianceIndices?: boolean; worstCase?: boolean }>;
+  /** Snapshot of the revision's document, so a run never depends on later edits. */
+  design: Json<unknown>;
+  engine_version: string;
+  chunk_total: number;
+  chunks_done: ColumnType<number, number | undefined, number>;
+  error: string | null;
+  /** The worker merging the run, and until when its claim holds (taken over after expiry). */
+  merge_owner: string | null;
+  merge_lease_until: NullableTimestamp;
+  /** 'pending' when the owner must be mailed (large runs), 'sent' once done. */
+  notify_state: 'pending' | 'sent' | null;
+  created_at: CreatedAt;
+  started_at: NullableTimestamp;
+  finished_at: NullableTimestamp;
+}
+
+/** The queue: one row per chunk of a run, leased by a worker, holding the chunk result once done. */
+export interface RunChunksTable {
+  run_id: string;
+  chunk_index: number;
+  state: ColumnType<'pending' | 'leased' | 'done', 'pending' | 'leased' | 'done' | undefined>;
+  lease_owner: string | null;
+  lease_until: NullableTimestamp;
+  attempts: ColumnType<number, number | undefined, number>;
+  /** The engine's ChunkResult (json column: the number text is kept verbatim). */
+  result: ColumnType<unknown, string | null | undefined, string | null>;
+  done_at: NullableTimestamp;
+}
+
+/** The merged results of a finished run (the engine's RunResults). */
+export interface RunResultsTable {
+  run_id: string;
+  results: Json<unknown>;
+  valid_count: number | null;
+  joint_yield: number | null;
+  created_at: CreatedAt;
+}
+
+export type Run = Selectable<RunsTable>;
+export type RunChunk = Selectable<RunChunksTable>;
+export type RunResultRow = Selectable<RunResultsTable>;
+
 // ---- end of runs tables ----
 
 /** Every table of the application database. */
@@ -137,6 +195,9 @@ export interface Database {
   dev_mail: DevMailTable;
   audit_events: AuditEventsTable;
   // runs tables below
+  runs: RunsTable;
+  run_chunks: RunChunksTable;
+  run_results: RunResultsTable;
 }
 
 export type Workspace = Selectable<WorkspacesTable>;

@@ -13,10 +13,10 @@ export async function up(db: Kysely<unknown>): Promise<void> {
   await db.schema
     .createTable('runs')
     .addColumn('id', 'uuid', (c) => c.primaryKey().defaultTo(sql`gen_random_uuid()`))
-    .addColumn('workspace_id', 'integer', (c) => c.notNull())
-    .addColumn('design_id', 'integer', (c) => c.notNull())
+    .addColumn('workspace_id', 'uuid', (c) => c.notNull().references('workspaces.id').onDelete('cascade'))
+    .addColumn('design_id', 'uuid', (c) => c.notNull().references('designs.id').onDelete('cascade'))
     .addColumn('revision', 'integer', (c) => c.notNull())
-    .addColumn('created_by', 'integer', (c) => c.notNull())
+    .addColumn('created_by', 'uuid', (c) => c.notNull().references('users.id'))
     .addColumn('status', 'text', (c) =>
       c
         .notNull()

@@ -1,8 +1,7 @@
 import crypto from 'node:crypto';
 import os from 'node:os';
-import { Kysely, PostgresDialect } from 'kysely';
-import pg from 'pg';
-import type { RunsDatabase } from '../runs/runsDb.js';
+import { createDb } from '@sigmatail/db';
+import type { Db } from '../runs/runsDb.js';
 import { ChunkWorker } from './chunkWorker.js';
 import { createChunkPool, defaultThreads } from './chunkPool.js';
 import { listenRuns } from './runsChannel.js';
@@ -11,7 +10,7 @@ export type WorkerProcessOptions = {
   env: NodeJS.ProcessEnv;
   /** Thread file to run (tests pass a fake job's); default: the engine's. */
   taskUrl?: URL;
-  housekeeping?: (db: Kysely<RunsDatabase>) => () => Promise<void>;
+  housekeeping?: (db: Db) => () => Promise<void>;
 };
 
 function positiveInt(env: NodeJS.ProcessEnv, name: string, fallback: number): number {
@@ -38,9 +37,7 @@ export async function runWorkerProcess(o: WorkerProcessOptions): Promise<void> {
   const owner = `${os.hostname()}:${process.pid}:${crypto.randomBytes(3).toString('hex')}`;
   const log = (line: string) => process.stdout.write(`[worker ${owner}] ${line}\n`);
 
-  const db = new Kysely<RunsDatabase>({
-    dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString: url, max: 4 }) }),
-  });
+  const db = createDb(url, { max: 4 });
   const pool = createChunkPool({ threads, taskUrl: o.taskUrl });
   const worker = new ChunkWorker({
     db,

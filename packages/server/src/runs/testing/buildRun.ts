@@ -1,26 +1,50 @@
+import crypto from 'node:crypto';
+import type { RunStatus } from '@sigmatail/db';
 import { sql } from 'kysely';
-import type { Db, RunsTable } from '../runsDb.js';
+import type { Db } from '../runsDb.js';
 
 type Overrides = Partial<{
   samples: number;
   chunkSize: number;
   seed: string;
   design: unknown;
-  status: RunsTable['status']['__select__'];
+  status: RunStatus;
 }>;
+
+/** Builder fixture: a workspace, a user and a design to hang runs on. */
+export async function buildOwner(db: Db): Promise<{ workspaceId: string; userId: string; designId: string }> {
+  const tag = crypto.randomBytes(4).toString('hex');
+  const ws = await db
+    .insertInto('workspaces')
+    .values({ name: `Fixture works ${tag}`, settings: '{}' })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  const user = await db
+    .insertInto('users')
+    .values({ email: `owner-${tag}@fixture.example`, name: 'Fixture Owner', password_hash: 'x' })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  const design = await db
+    .insertInto('designs')
+    .values({ workspace_id: ws.id, name: `Fixture stage ${tag}`, created_by: user.id, latest_rev: 1 })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  return { workspaceId: ws.id, userId: user.id, designId: design.id };
+}
 
 /** Builder fixture: inserts a queued run (and its chunk rows) directly, as a launch would. */
 export async function buildRun(db: Db, o: Overrides = {}): Promise<string> {
+  const owner = await buildOwner(db);
   const samples = o.samples ?? 10_000;
   const chunkSize = o.chunkSize ?? 1_000;
   const chunkTotal = Math.ceil(samples / chunkSize);
   const run = await db
     .insertInto('runs')
     .values({
-      workspace_id: 1,
-      design_id: 1,
+      workspace_id: owner.workspaceId,
+      design_id: owner.designId,
       revision: 1,
-      created_by: 1,
+      created_by: owner.userId,
       samples,
       seed: o.seed ?? 'fixture-seed',
       plan: 'random',

@@ -1,7 +1,6 @@
-import { Kysely, PostgresDialect, sql } from 'kysely';
+import { createDb, migrateToLatest } from '@sigmatail/db';
 import pg from 'pg';
-import * as runsMigration from '../../../../../db/src/migrations/2026_12_02_0001_runs.js';
-import type { Db, RunsDatabase } from '../runsDb.js';
+import type { Db } from '../runsDb.js';
 
 const base = process.env.TEST_DATABASE_URL ?? 'postgres://postgres@127.0.0.1:55432/sigmatail_test';
 
@@ -12,18 +11,21 @@ export function testDbUrl(name: string): string {
   return u.toString();
 }
 
-/** Creates (or empties) a database of its own for one test file and migrates it. */
+/**
+ * A fresh, migrated database of its own for one test file: the worker processes a test spawns
+ * see only that file's runs.
+ */
 export async function createTestDb(name: string): Promise<{ db: Db; url: string }> {
   const admin = new pg.Client({ connectionString: testDbUrl('postgres') });
   await admin.connect();
-  await admin.query(`drop database if exists "${name}" with (force)`);
-  await admin.query(`create database "${name}"`);
-  await admin.end();
+  try {
+    await admin.query(`drop database if exists "${name}" with (force)`);
+    await admin.query(`create database "${name}"`);
+  } finally {
+    await admin.end();
+  }
   const url = testDbUrl(name);
-  const db = new Kysely<RunsDatabase>({
-    dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString: url, max: 6 }) }),
-  });
-  await runsMigration.up(db as unknown as Kysely<unknown>);
-  await sql`select 1`.execute(db);
+  const db = createDb(url, { max: 6 });
+  await migrateToLatest(db);
   return { db, url };
 }
