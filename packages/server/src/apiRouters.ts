@@ -1,12 +1,33 @@
 import type { Router } from 'express';
 import type { AppDeps } from './appDeps.js';
+import { createAuditRouter } from './audit/auditRouter.js';
+import { createAuthRouter } from './auth/authRouter.js';
+import { createPasswordResetRouter } from './auth/passwordResetRouter.js';
+import { createDesignsRouter } from './designs/designsRouter.js';
+import { createDevInboxRouter } from './devInbox/devInboxRouter.js';
 import { createHealthRouter } from './http/healthRouter.js';
 import { createRunsRouter } from './runs/runsRouter.js';
+import { createAcceptInviteRouter } from './users/acceptInviteRouter.js';
+import { createInvitesRouter } from './users/invitesRouter.js';
+import { createUsersRouter } from './users/usersRouter.js';
+import { createWorkspaceRouter } from './workspace/workspaceRouter.js';
 
 /**
  * Every router mounted under /api, each with paths relative to /api. The role matrix test walks
- * these; a new router goes here and its routes into a *RouteAccess.ts table.
+ * these: a new route needs an entry in a *RouteAccess.ts table or that test fails.
  */
 export function apiRouters(deps: AppDeps): Router[] {
-  return [createHealthRouter(deps), createRunsRouter(deps)];
+  return [
+    createHealthRouter(deps),
+    createAuthRouter(deps),
+    createPasswordResetRouter(deps),
+    createAcceptInviteRouter(deps),
+    createInvitesRouter(deps),
+    createUsersRouter(deps),
+    createWorkspaceRouter(deps),
+    createDevInboxRouter(deps),
+    createAuditRouter(deps),
+    createDesignsRouter(deps),
+    createRunsRouter(deps),
+  ];
 }

@@ -1,5 +1,6 @@
 import type { RequestHandler } from 'express';
 import type { AppDeps } from '../appDeps.js';
+import { findSessionUser } from './findSessionUser.js';
 import { SESSION_COOKIE, verifySessionToken } from './sessionToken.js';
 
 /**
@@ -13,31 +14,10 @@ export function loadSession({ db, config }: AppDeps): RequestHandler {
     if (typeof token !== 'string' || !token) return next();
     const claims = await verifySessionToken(token, config.secret);
     if (!claims) return next();
-    const row = await db
-      .selectFrom('users as u')
-      .innerJoin('memberships as m', 'm.user_id', 'u.id')
-      .innerJoin('workspaces as w', 'w.id', 'm.workspace_id')
-      .select([
-        'u.id',
-        'u.email',
-        'u.name',
-        'u.session_epoch',
-        'm.role',
-        'w.id as workspaceId',
-        'w.name as workspaceName',
-      ])
-      .where('u.id', '=', claims.userId)
-      .where('m.workspace_id', '=', claims.workspaceId)
-      .executeTakeFirst();
-    if (row && row.session_epoch === claims.epoch) {
-      req.user = {
-        id: row.id,
-        email: row.email,
-        name: row.name,
-        role: row.role,
-        workspaceId: row.workspaceId,
-        workspaceName: row.workspaceName,
-      };
+    const row = await findSessionUser(db, { userId: claims.userId, workspaceId: claims.workspaceId });
+    if (row && row.sessionEpoch === claims.epoch) {
+      const { sessionEpoch: _e, passwordHash: _p, ...user } = row;
+      req.user = user;
     }
     next();
   };

@@ -17,7 +17,13 @@ export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
   let body: ErrorBody;
   if (err instanceof HttpError) {
     status = err.status;
-    body = { error: { message: err.message, ...(err.field ? { field: err.field } : {}) } };
+    body = {
+      error: {
+        message: err.message,
+        ...(err.field ? { field: err.field } : {}),
+        ...(err.issues ? { issues: err.issues } : {}),
+      },
+    };
   } else if (err instanceof ZodError) {
     status = 400;
     const issues = err.issues.map((i) => ({ path: i.path.map(String).join('.'), message: i.message }));

@@ -7,6 +7,8 @@ export class HttpError extends Error {
     readonly status: number,
     message: string,
     readonly field?: string,
+    /** Every problem found, when there are several (e.g. a design document). */
+    readonly issues?: { path: string; message: string }[],
   ) {
     super(message);
     this.name = 'HttpError';

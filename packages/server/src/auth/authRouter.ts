@@ -1,0 +1,80 @@
+import bcrypt from 'bcryptjs';
+import { Router } from 'express';
+import { z } from 'zod';
+import type { AppDeps } from '../appDeps.js';
+import { recordAudit } from '../audit/recordAudit.js';
+import { emailField } from '../http/fields.js';
+import { HttpError } from '../http/httpError.js';
+import { findSessionUser } from './findSessionUser.js';
+import { loginRateLimit } from './loginRateLimit.js';
+import { presentMe } from './presentMe.js';
+import { requireAuth } from './requireRole.js';
+import { clearSessionCookie, setSessionCookie } from './sessionCookie.js';
+
+const loginBody = z.object({ email: emailField, password: z.string().min(1, 'is required').max(1000) });
+const logoutBody = z.object({ everywhere: z.boolean().optional() }).optional();
+
+// Compared against when the email is unknown, so both cases take the same bcrypt time.
+const DUMMY_HASH = bcrypt.hashSync('not-a-password', 10);
+
+/** POST /auth/login, POST /auth/logout, GET /auth/me. */
+export function createAuthRouter(deps: AppDeps): Router {
+  const { db, config } = deps;
+  const router = Router();
+
+  router.post('/auth/login', loginRateLimit(config), async (req, res) => {
+    const { email, password } = loginBody.parse(req.body ?? {});
+    const user = await findSessionUser(db, { email });
+    const ok = await bcrypt.compare(password, user?.passwordHash ?? DUMMY_HASH);
+    if (!user || !ok) {
+      await recordAudit(db, {
+        workspaceId: user?.workspaceId ?? null,
+        userId: user?.id ?? null,
+        action: 'auth.login_failed',
+        target: email,
+      });
+      throw new HttpError(401, 'wrong email or password');
+    }
+    await setSessionCookie(
+      res,
+      { userId: user.id, workspaceId: user.workspaceId, epoch: user.sessionEpoch },
+      config,
+    );
+    await recordAudit(db, {
+      workspaceId: user.workspaceId,
+      userId: user.id,
+      action: 'auth.login',
+      target: email,
+    });
+    const { sessionEpoch: _e, passwordHash: _p, ...me } = user;
+    res.json(presentMe(me));
+  });
+
+  // Public: signing out with an expired or missing session is not an error.
+  router.post('/auth/logout', async (req, res) => {
+    const body = logoutBody.parse(req.body);
+    if (req.user && body?.everywhere) {
+      // Voids every token issued so far, on every device.
+      await db
+        .updateTable('users')
+        .set((eb) => ({ session_epoch: eb('session_epoch', '+', 1) }))
+        .where('id', '=', req.user.id)
+        .execute();
+    }
+    if (req.user) {
+      await recordAudit(db, {
+        workspaceId: req.user.workspaceId,
+        userId: req.user.id,
+        action: body?.everywhere ? 'auth.logout_everywhere' : 'auth.logout',
+      });
+    }
+    clearSessionCookie(res, config);
+    res.status(204).end();
+  });
+
+  router.get('/auth/me', requireAuth, (req, res) => {
+    res.json(presentMe(req.user!));
+  });
+
+  return router;
+}

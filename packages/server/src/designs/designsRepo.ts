@@ -1,0 +1,162 @@
+import type { Database } from '@sigmatail/db';
+import { sql, type Kysely } from 'kysely';
+
+/** All design SQL: a design is a name plus a chain of immutable revisions 1, 2, 3, … */
+
+export async function listDesigns(
+  db: Kysely<Database>,
+  workspaceId: string,
+  filter: { q?: string; archived: 'exclude' | 'include' | 'only' },
+) {
+  let query = db
+    .selectFrom('designs as d')
+    .innerJoin('users as u', 'u.id', 'd.created_by')
+    .select([
+      'd.id',
+      'd.name',
+      'd.latest_rev as latestRev',
+      'd.created_at as createdAt',
+      'd.updated_at as updatedAt',
+      'd.archived_at as archivedAt',
+      'u.id as createdById',
+      'u.name as createdByName',
+    ])
+    .where('d.workspace_id', '=', workspaceId)
+    .orderBy('d.updated_at', 'desc')
+    .limit(500);
+  if (filter.archived === 'exclude') query = query.where('d.archived_at', 'is', null);
+  if (filter.archived === 'only') query = query.where('d.archived_at', 'is not', null);
+  if (filter.q) {
+    const like = `%${filter.q.replace(/[\\%_]/g, '\\$&')}%`;
+    query = query.where((eb) =>
+      eb.or([
+        eb('d.name', 'ilike', like),
+        // Notes live in the latest document; searching them helps find "the one with the 12AT7".
+        eb.exists(
+          eb
+            .selectFrom('design_revisions as r')
+            .select(sql`1`.as('one'))
+            .whereRef('r.design_id', '=', 'd.id')
+            .whereRef('r.rev', '=', 'd.latest_rev')
+            .where(sql<string>`r.document::text`, 'ilike', like),
+        ),
+      ]),
+    );
+  }
+  const rows = await query.execute();
+  return rows.map(({ createdById, createdByName, ...d }) => ({
+    ...d,
+    createdBy: { id: createdById, name: createdByName },
+  }));
+}
+
+export async function findDesign(db: Kysely<Database>, workspaceId: string, id: string) {
+  return db
+    .selectFrom('designs')
+    .selectAll()
+    .where('workspace_id', '=', workspaceId)
+    .where('id', '=', id)
+    .executeTakeFirst();
+}
+
+export async function listRevisions(db: Kysely<Database>, designId: string) {
+  const rows = await db
+    .selectFrom('design_revisions as r')
+    .innerJoin('users as u', 'u.id', 'r.created_by')
+    .select([
+      'r.rev',
+      'r.message',
+      'r.created_at as createdAt',
+      'u.id as createdById',
+      'u.name as createdByName',
+    ])
+    .where('r.design_id', '=', designId)
+    .orderBy('r.rev', 'desc')
+    .execute();
+  return rows.map(({ createdById, createdByName, ...r }) => ({
+    ...r,
+    createdBy: { id: createdById, name: createdByName },
+  }));
+}
+
+export async function findRevision(db: Kysely<Database>, designId: string, rev: number) {
+  const r = await db
+    .selectFrom('design_revisions as r')
+    .innerJoin('users as u', 'u.id', 'r.created_by')
+    .select([
+      'r.rev',
+      'r.document',
+      'r.message',
+      'r.created_at as createdAt',
+      'u.id as createdById',
+      'u.name as createdByName',
+    ])
+    .where('r.design_id', '=', designId)
+    .where('r.rev', '=', rev)
+    .executeTakeFirst();
+  if (!r) return undefined;
+  const { createdById, createdByName, ...rest } = r;
+  return { ...rest, createdBy: { id: createdById, name: createdByName } };
+}
+
+/** Creates the design with revision 1. */
+export async function insertDesign(
+  db: Kysely<Database>,
+  v: { workspaceId: string; userId: string; name: string; document: unknown; message: string | null },
+): Promise<string> {
+  return db.transaction().execute(async (tx) => {
+    const d = await tx
+      .insertInto('designs')
+      .values({ workspace_id: v.workspaceId, name: v.name, created_by: v.userId, latest_rev: 1 })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    await tx
+      .insertInto('design_revisions')
+      .values({
+        design_id: d.id,
+        rev: 1,
+        document: JSON.stringify(v.document),
+        message: v.message,
+        created_by: v.userId,
+      })
+      .execute();
+    return d.id;
+  });
+}
+
+/**
+ * Appends the next revision. Bumping latest_rev first takes the row lock, so two concurrent
+ * saves get consecutive numbers instead of colliding.
+ */
+export async function insertRevision(
+  db: Kysely<Database>,
+  v: { designId: string; userId: string; name: string; document: unknown; message: string | null },
+): Promise<number> {
+  return db.transaction().execute(async (tx) => {
+    const d = await tx
+      .updateTable('designs')
+      .set((eb) => ({ latest_rev: eb('latest_rev', '+', 1), name: v.name, updated_at: new Date() }))
+      .where('id', '=', v.designId)
+      .returning('latest_rev')
+      .executeTakeFirstOrThrow();
+    await tx
+      .insertInto('design_revisions')
+      .values({
+        design_id: v.designId,
+        rev: d.latest_rev,
+        document: JSON.stringify(v.document),
+        message: v.message,
+        created_by: v.userId,
+      })
+      .execute();
+    return d.latest_rev;
+  });
+}
+
+export async function setArchived(db: Kysely<Database>, designId: string, archived: boolean): Promise<void> {
+  await db
+    .updateTable('designs')
+    .set({ archived_at: archived ? new Date() : null })
+    .where('id', '=', designId)
+    .execute();
+}

@@ -1,0 +1,48 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import type { AppDeps } from '../appDeps.js';
+import { requireRole } from '../auth/requireRole.js';
+import { HttpError } from '../http/httpError.js';
+import { uuidParam } from '../http/uuidParam.js';
+
+const listQuery = z.object({
+  to: z.string().trim().toLowerCase().max(254).optional(),
+  limit: z.coerce.number().int('must be a whole number').min(1).max(500).default(100),
+});
+
+/** GET /dev/inbox?to=&limit=, GET /dev/inbox/:id: mail caught by the local SMTP fake (admin). */
+export function createDevInboxRouter({ db }: AppDeps): Router {
+  const router = Router();
+
+  router.get('/dev/inbox', requireRole('admin'), async (req, res) => {
+    const q = listQuery.parse(req.query);
+    let query = db
+      .selectFrom('dev_mail')
+      .select(['id', 'mail_from as from', 'mail_to as to', 'subject', 'received_at as receivedAt'])
+      .orderBy('received_at', 'desc')
+      .limit(q.limit);
+    if (q.to) query = query.where('mail_to', 'like', `%${q.to.replace(/[\\%_]/g, '\\$&')}%`);
+    res.json({ messages: await query.execute() });
+  });
+
+  router.get('/dev/inbox/:id', requireRole('admin'), async (req, res) => {
+    const id = uuidParam(req, 'id', 'message');
+    const message = await db
+      .selectFrom('dev_mail')
+      .select([
+        'id',
+        'mail_from as from',
+        'mail_to as to',
+        'subject',
+        'text',
+        'html',
+        'received_at as receivedAt',
+      ])
+      .where('id', '=', id)
+      .executeTakeFirst();
+    if (!message) throw new HttpError(404, 'message not found');
+    res.json({ message });
+  });
+
+  return router;
+}

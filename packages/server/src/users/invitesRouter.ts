@@ -1,0 +1,72 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import type { AppDeps } from '../appDeps.js';
+import { recordAudit } from '../audit/recordAudit.js';
+import { newMailToken } from '../auth/mailToken.js';
+import { requireRole } from '../auth/requireRole.js';
+import { emailField, roleField } from '../http/fields.js';
+import { HttpError } from '../http/httpError.js';
+
+const INVITE_TTL_MS = 7 * 24 * 3600 * 1000;
+const inviteBody = z.object({ email: emailField, role: roleField });
+
+/** POST /invites (admin): records an invite and mails the link APP_URL/invite/<token>. */
+export function createInvitesRouter({ db, mailer, config }: AppDeps): Router {
+  const router = Router();
+
+  router.post('/invites', requireRole('admin'), async (req, res) => {
+    const { email, role } = inviteBody.parse(req.body ?? {});
+    const admin = req.user!;
+    const member = await db
+      .selectFrom('memberships as m')
+      .innerJoin('users as u', 'u.id', 'm.user_id')
+      .select('u.id')
+      .where('m.workspace_id', '=', admin.workspaceId)
+      .where('u.email', '=', email)
+      .executeTakeFirst();
+    if (member) throw new HttpError(409, `${email} is already a member of this workspace`, 'email');
+
+    const { token, hash } = newMailToken();
+    const invite = await db
+      .insertInto('invites')
+      .values({
+        workspace_id: admin.workspaceId,
+        email,
+        role,
+        token_hash: hash,
+        invited_by: admin.id,
+        expires_at: new Date(Date.now() + INVITE_TTL_MS),
+      })
+      .returning(['id', 'email', 'role', 'expires_at'])
+      .executeTakeFirstOrThrow();
+    const link = `${config.appUrl}/invite/${token}`;
+    try {
+      await mailer.send({
+        to: email,
+        subject: `${admin.name} invited you to ${admin.workspaceName} on Sigmatail`,
+        text: `${admin.name} invited you to join ${admin.workspaceName} on Sigmatail as ${role}.\n\nAccept within 7 days:\n${link}\n`,
+        html: `<p>${escapeHtml(admin.name)} invited you to join <b>${escapeHtml(admin.workspaceName)}</b> on Sigmatail as ${role}.</p><p><a href="${link}">Accept the invite</a> (valid for 7 days).</p>`,
+      });
+    } catch (err) {
+      // No invite without its mail: nobody could use it.
+      await db.deleteFrom('invites').where('id', '=', invite.id).execute();
+      throw new HttpError(502, `the invite mail could not be sent: ${(err as Error).message}`);
+    }
+    await recordAudit(db, {
+      workspaceId: admin.workspaceId,
+      userId: admin.id,
+      action: 'invite.create',
+      target: email,
+      detail: { role, inviteId: invite.id },
+    });
+    res.status(201).json({
+      invite: { id: invite.id, email: invite.email, role: invite.role, expiresAt: invite.expires_at },
+    });
+  });
+
+  return router;
+}
+
+function escapeHtml(s: string): string {
+  return s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
+}
