@@ -1,0 +1,59 @@
+import type { ResolvedDesign } from '../design/designSchema.js';
+import { TUBE_CATALOG } from '../tubes/tubeCatalog.js';
+import type { BiasStatus } from './biasSolver.js';
+import { createStageContext, nominalStageInputs, solveStageBias } from './stageEvaluator.js';
+import { createStagePoint, type MetricValues } from './stagePoint.js';
+import { ratingWarnings, type StageWarning } from './ratingWarnings.js';
+import { trimRl2, type TrimResult } from './trimRl2.js';
+
+/** The nominal report of a design: bias point, small signal, trim and warnings. */
+export interface NominalReport {
+  /** 'ok', or why the design has no valid bias point. */
+  status: BiasStatus;
+  /** One-line explanation when status is not 'ok'. */
+  diagnosis?: string;
+  /** Every metric at nominal (SI units: A, V, Ω, S, W, dB); NaN when status is not 'ok'. */
+  metrics: MetricValues;
+  /** Ratings exceeded at nominal. */
+  warnings: StageWarning[];
+  /** The RL2 that balances the outputs; absent when there is no valid bias. */
+  trim?: TrimResult;
+}
+
+const DIAGNOSIS: Record<Exclude<BiasStatus, 'ok'>, string> = {
+  'supply-too-low': 'B+ must be positive and above the tail supply; no current can flow',
+  'cut-off':
+    'a section is cut off (plate current below 1 µA): grid bias too negative for this B+ and these resistors',
+  'grid-current':
+    'a grid sits positive to its cathode: grid current would flow, which the triode model does not cover; lower the grid-1 drive or raise Rk/Rt',
+  'no-convergence': 'the bias point solver did not converge; check that part values are physically sensible',
+};
+
+/**
+ * Everything the nominal view shows for a design, in one call: DC operating point, gm/rp/mu of
+ * each section, midband gains, impedances, balance, CMRR, rating warnings and the trim. Pure and
+ * synchronous, so the web editor can run it on every keystroke.
+ *
+ * @example
+ * const r = nominalResults(design);
+ * r.metrics.balanceDb; // e.g. −0.8 (dB)
+ * r.trim?.e24.rl2; // e.g. 91000 (Ω)
+ */
+export function nominalResults(design: ResolvedDesign): NominalReport {
+  const ctx = createStageContext(design);
+  const status = solveStageBias(ctx, nominalStageInputs(design), false);
+  const metrics = createStagePoint(design)();
+  if (status !== 'ok') {
+    const why = DIAGNOSIS[status];
+    const vgk = Math.max(ctx.bp.vgk1, ctx.bp.vgk2);
+    const detail = status === 'grid-current' ? ` (Vgk = ${Number(vgk.toPrecision(3))} V)` : '';
+    return { status, diagnosis: why + detail, metrics, warnings: [] };
+  }
+  const tube = TUBE_CATALOG[design.tube.type];
+  return {
+    status,
+    metrics,
+    warnings: ratingWarnings(tube, metrics, design.supply.bPlus),
+    trim: trimRl2(design),
+  };
+}
