@@ -1,0 +1,133 @@
+import type { Sfc32 } from '../random/sfc32.js';
+import { normalQuantile } from './normalQuantile.js';
+import type { TubeSpreadSpec } from './spreadTypes.js';
+
+/** Attempts per sample before a pairing rule gives up and keeps the last draw (counted as a failure). */
+export const MAX_PAIRING_ATTEMPTS = 1000;
+
+/**
+ * Tube section spread, prepared. Each section's plate-current scale (perveance) and mu are
+ * lognormal multipliers with median 1: perv = exp(sP·z), sP = ln(1 + perveanceSd/100), so +1σ is
+ * exactly 1 + perveanceSd/100 and a multiplier never goes negative. Section 2 is joined to
+ * section 1 by a Gaussian copula: z2 = ρ·z1 + √(1-ρ²)·e, separately for perveance and for mu.
+ */
+export type TubeSpreadModel = {
+  readonly sPerv: number;
+  readonly sMu: number;
+  readonly rho: number;
+  readonly rhoC: number;
+  /** Pairing: quantity compared and the allowed relative mismatch (fraction); null = unpaired. */
+  readonly pairing: { quantity: 'ia' | 'gm' | 'mu'; within: number } | null;
+};
+
+/** Counts of the pairing rule's rejection sampling: acceptance rate = samples / draws. */
+export type PairingTally = { samples: number; draws: number; failures: number };
+
+/**
+ * Prepares a tube spread. Throws RangeError naming the field for out-of-range values.
+ *
+ * @example prepareTubeSpread({ perveanceSd: 10, muSd: 3, sectionCorrelation: 0.5 })
+ */
+export function prepareTubeSpread(spec: TubeSpreadSpec, field = 'tube.spread'): TubeSpreadModel {
+  const { perveanceSd, muSd, sectionCorrelation: rho } = spec;
+  if (!(perveanceSd >= 0 && perveanceSd < 100)) throw new RangeError(`${field}.perveanceSd must be 0..100`);
+  if (!(muSd >= 0 && muSd < 100)) throw new RangeError(`${field}.muSd must be 0..100`);
+  if (!(rho >= 0 && rho <= 1)) throw new RangeError(`${field}.sectionCorrelation must be 0..1`);
+  const pairing = spec.pairing;
+  if (pairing && !(pairing.within > 0 && pairing.within < 100)) {
+    throw new RangeError(`${field}.pairing.within must be > 0 and < 100`);
+  }
+  return {
+    sPerv: Math.log(1 + perveanceSd / 100),
+    sMu: Math.log(1 + muSd / 100),
+    rho,
+    rhoC: Math.sqrt(1 - rho * rho),
+    pairing: pairing ? { quantity: pairing.quantity, within: pairing.within / 100 } : null,
+  };
+}
+
+/**
+ * Whether two sections pass the pairing rule: |q1/q2 − 1| <= within. For 'mu' q is the mu
+ * multiplier. For 'ia' and 'gm' the exact quantities would need a DC solve per candidate, so they
+ * are approximated from the perveance multipliers: at equal grid-cathode voltage the plate current
+ * scales with perveance, and under a 3/2-power law at equal current gm scales as perveance^(2/3).
+ */
+export function sectionsPaired(
+  t: TubeSpreadModel,
+  perv1: number,
+  perv2: number,
+  mu1: number,
+  mu2: number,
+): boolean {
+  const pr = t.pairing;
+  if (pr === null) return true;
+  let ratio: number;
+  if (pr.quantity === 'mu') ratio = mu1 / mu2;
+  else if (pr.quantity === 'ia') ratio = perv1 / perv2;
+  else ratio = Math.pow(perv1 / perv2, 2 / 3);
+  return Math.abs(ratio - 1) <= pr.within;
+}
+
+/**
+ * In place: fills the four section multipliers for samples 0..n-1 from four uniform columns
+ * (null = that spread is zero, multiplier 1). When a pairing rule rejects a pair and `redraw` is
+ * given, the whole envelope is drawn again from `redraw` (four uniforms per attempt, in sample
+ * order, so the result is deterministic) until it passes or MAX_PAIRING_ATTEMPTS is reached.
+ * With `redraw` null the rule is not applied (used for variance-based indices, which need
+ * independent inputs).
+ */
+export function fillTubeInPlace(
+  t: TubeSpreadModel,
+  u: {
+    perv1: Float64Array | null;
+    perv2: Float64Array | null;
+    mu1: Float64Array | null;
+    mu2: Float64Array | null;
+  },
+  n: number,
+  out: { perv1: Float64Array; perv2: Float64Array; mu1: Float64Array; mu2: Float64Array },
+  redraw: Sfc32 | null,
+  tally: PairingTally,
+): void {
+  const { sPerv, sMu, rho, rhoC } = t;
+  for (let s = 0; s < n; s++) {
+    let zp1 = u.perv1 ? normalQuantile(u.perv1[s]) : 0;
+    let ep = u.perv2 ? normalQuantile(u.perv2[s]) : 0;
+    let zm1 = u.mu1 ? normalQuantile(u.mu1[s]) : 0;
+    let em = u.mu2 ? normalQuantile(u.mu2[s]) : 0;
+    let p1 = Math.exp(sPerv * zp1);
+    let p2 = Math.exp(sPerv * (rho * zp1 + rhoC * ep));
+    let m1 = Math.exp(sMu * zm1);
+    let m2 = Math.exp(sMu * (rho * zm1 + rhoC * em));
+    tally.draws++;
+    if (redraw !== null && t.pairing !== null) {
+      let attempts = 1;
+      while (!sectionsPaired(t, p1, p2, m1, m2)) {
+        if (attempts >= MAX_PAIRING_ATTEMPTS) {
+          tally.failures++;
+          break;
+        }
+        attempts++;
+        tally.draws++;
+        zp1 = normalQuantile(redraw.nextOpen());
+        ep = normalQuantile(redraw.nextOpen());
+        zm1 = normalQuantile(redraw.nextOpen());
+        em = normalQuantile(redraw.nextOpen());
+        p1 = Math.exp(sPerv * zp1);
+        p2 = Math.exp(sPerv * (rho * zp1 + rhoC * ep));
+        m1 = Math.exp(sMu * zm1);
+        m2 = Math.exp(sMu * (rho * zm1 + rhoC * em));
+      }
+    }
+    tally.samples++;
+    out.perv1[s] = p1;
+    out.perv2[s] = p2;
+    out.mu1[s] = m1;
+    out.mu2[s] = m2;
+  }
+}
+
+/** Extreme multipliers used for worst-case corners and the tornado chart: exp(±3·s) (±3σ). */
+export function tubeRange(s: number): { low: number; high: number } {
+  return { low: Math.exp(-3 * s), high: Math.exp(3 * s) };
+}
