@@ -6,5 +6,6 @@ export default defineConfig({
   test: {
     include: ['src/**/*.test.ts', 'e2e/**/*.test.ts'],
     testTimeout: 30_000,
+    globalSetup: ['src/testing/globalSetup.ts'],
   },
 });

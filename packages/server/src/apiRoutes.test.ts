@@ -1,0 +1,97 @@
+import { randomUUID } from 'node:crypto';
+import { readdir } from 'node:fs/promises';
+import path from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import { ROLES, type Role } from '@sigmatail/db';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createApp } from './app.js';
+import type { RouteAccess, RouteAccessTable } from './http/routeAccess.js';
+import { listApiRoutes } from './http/listApiRoutes.js';
+import { buildTeam } from './testing/buildUser.js';
+import { signIn } from './testing/signIn.js';
+import { startTestApp, type TestApp } from './testing/startTestApp.js';
+import type { TestClient } from './testing/testClient.js';
+
+// The role × route matrix: every route the app registers × {anonymous, each role}.
+// Expected access comes from every `*RouteAccess.ts` table under src/ (one per area, e.g.
+// foundationRouteAccess.ts, runs/runsRouteAccess.ts); a route with no entry fails the test.
+
+const SRC = path.dirname(fileURLToPath(import.meta.url));
+
+async function loadAccessTables(): Promise<Record<string, RouteAccess>> {
+  const files = (await readdir(SRC, { recursive: true })).filter((f) => /RouteAccess\.ts$/.test(f));
+  const merged: Record<string, RouteAccess> = {};
+  for (const f of files) {
+    const mod = (await import(pathToFileURL(path.join(SRC, f)).href)) as Record<string, RouteAccessTable>;
+    for (const table of Object.values(mod)) {
+      for (const [route, access] of Object.entries(table)) {
+        if (route in merged) throw new Error(`${route} is listed twice (again in ${f})`);
+        merged[route] = access;
+      }
+    }
+  }
+  return merged;
+}
+
+type Who = 'anonymous' | Role;
+
+function expected(access: RouteAccess, who: Who): 'allowed' | 401 | 403 {
+  if (access === 'public') return 'allowed';
+  if (who === 'anonymous') return 401;
+  if (access === 'signedIn') return 'allowed';
+  return access.includes(who) ? 'allowed' : 403;
+}
+
+let app: TestApp;
+let access: Record<string, RouteAccess>;
+let routes: string[];
+const clients = {} as Record<Who, TestClient>;
+
+beforeAll(async () => {
+  app = await startTestApp();
+  access = await loadAccessTables();
+  routes = listApiRoutes(createApp(app.deps));
+  const team = await buildTeam(app.deps.db);
+  clients.anonymous = app.client();
+  for (const role of ROLES) clients[role] = await signIn(app, team[role]);
+});
+afterAll(() => app?.close());
+
+describe('role × route matrix', () => {
+  it('finds the routes', () => {
+    expect(routes.length).toBeGreaterThanOrEqual(24);
+    expect(routes).toContain('GET /api/designs/:id');
+  });
+
+  it('has an expected-access entry for every registered route, and no stale entries', () => {
+    const missing = routes.filter((r) => !(r in access));
+    expect(missing, 'add these routes to a *RouteAccess.ts table').toEqual([]);
+    const stale = Object.keys(access).filter((r) => !routes.includes(r));
+    expect(stale, 'these table entries name no registered route').toEqual([]);
+  });
+
+  it('enforces the expected access for anonymous and every role', async () => {
+    const failures: string[] = [];
+    for (const route of routes) {
+      const [method, pattern] = route.split(' ') as [string, string];
+      // Any well-formed id: the row does not exist, so allowed callers get 400/404, never 401/403.
+      const url = pattern.replace(/:[A-Za-z]+/g, () => randomUUID());
+      for (const who of ['anonymous', ...ROLES] as Who[]) {
+        const want = expected(access[route]!, who);
+        // A fresh copy of the session each time: POST /auth/logout must not sign the shared client out.
+        const client = Object.assign(
+          Object.create(Object.getPrototypeOf(clients[who])),
+          clients[who],
+        ) as TestClient;
+        const res = await client.request(
+          method,
+          url,
+          method === 'GET' || method === 'DELETE' ? undefined : {},
+        );
+        const ok = want === 'allowed' ? res.status !== 401 && res.status !== 403 : res.status === want;
+        if (!ok || res.status >= 500) failures.push(`${route} as ${who}: got ${res.status}, want ${want}`);
+      }
+    }
+    expect(failures).toEqual([]);
+  });
+});

@@ -1,0 +1,126 @@
+import { randomBytes } from 'node:crypto';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { buildUser } from '../testing/buildUser.js';
+import { linkToken, readMail } from '../testing/readMail.js';
+import { signIn } from '../testing/signIn.js';
+import { startTestApp, type TestApp } from '../testing/startTestApp.js';
+
+let app: TestApp;
+beforeAll(async () => {
+  app = await startTestApp();
+});
+afterAll(() => app?.close());
+
+const newEmail = () => `Invitee-${randomBytes(5).toString('hex')}@Fixture.example`;
+
+describe('invite by e-mail, end to end through the SMTP fake', () => {
+  it('mails a link; the invitee sees who invited them, accepts, and is signed in with the role', async () => {
+    const admin = await buildUser(app.deps.db, { role: 'admin', name: 'Iris Admin' });
+    const adminClient = await signIn(app, admin);
+    const email = newEmail();
+    const created = await adminClient.post('/api/invites', { email, role: 'production' });
+    expect(created.status).toBe(201);
+    expect(created.body.invite).toMatchObject({ email: email.toLowerCase(), role: 'production' });
+
+    const mail = await readMail(app.deps.db, email);
+    expect(mail.subject).toMatch(/Iris Admin invited you/);
+    expect(mail.text).toContain('http://app.test/invite/');
+    const token = linkToken(mail.text, 'invite');
+
+    const info = await app.client().get(`/api/invites/${token}`);
+    expect(info.status).toBe(200);
+    expect(info.body.invite).toMatchObject({
+      email: email.toLowerCase(),
+      role: 'production',
+      invitedBy: { name: 'Iris Admin' },
+    });
+
+    const invitee = app.client();
+    const accepted = await invitee.post('/api/auth/accept-invite', {
+      token,
+      name: 'Nia New',
+      password: 'a-long-password',
+    });
+    expect(accepted.status).toBe(200);
+    expect(accepted.body.user).toMatchObject({
+      name: 'Nia New',
+      role: 'production',
+      workspace: { id: admin.workspaceId },
+    });
+    expect((await invitee.get('/api/auth/me')).body.user.email).toBe(email.toLowerCase());
+
+    // The link is single-use, and the new password works.
+    const again = await app
+      .client()
+      .post('/api/auth/accept-invite', { token, name: 'X', password: 'another-password' });
+    expect(again.status).toBe(400);
+    expect(again.body.error.field).toBe('token');
+    expect((await app.client().get(`/api/invites/${token}`)).status).toBe(404);
+    await signIn(app, { email, password: 'a-long-password' });
+
+    const users = await adminClient.get('/api/users');
+    expect(users.body.users.map((u: { email: string }) => u.email)).toContain(email.toLowerCase());
+    const audit = await adminClient.get('/api/audit');
+    const actions = audit.body.events.map((e: { action: string }) => e.action);
+    expect(actions).toEqual(expect.arrayContaining(['invite.create', 'invite.accept']));
+  });
+
+  it('validates the invite and the acceptance, naming the field', async () => {
+    const admin = await buildUser(app.deps.db, { role: 'admin' });
+    const adminClient = await signIn(app, admin);
+    const bad = await adminClient.post('/api/invites', { email: 'x@y.example', role: 'owner' });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.field).toBe('role');
+    const member = await adminClient.post('/api/invites', { email: admin.email, role: 'viewer' });
+    expect(member.status).toBe(409);
+    expect(member.body.error.field).toBe('email');
+
+    const email = newEmail();
+    await adminClient.post('/api/invites', { email, role: 'viewer' });
+    const token = linkToken((await readMail(app.deps.db, email)).text, 'invite');
+    const short = await app
+      .client()
+      .post('/api/auth/accept-invite', { token, name: 'Sam', password: 'short' });
+    expect(short.status).toBe(400);
+    expect(short.body.error.field).toBe('password');
+    const unknown = await app.client().get('/api/invites/not-a-real-token-at-all');
+    expect(unknown.status).toBe(404);
+  });
+
+  it('lets an existing account join another workspace only with its own password', async () => {
+    const other = await buildUser(app.deps.db, { role: 'viewer' });
+    const admin = await buildUser(app.deps.db, { role: 'admin' });
+    const adminClient = await signIn(app, admin);
+    await adminClient.post('/api/invites', { email: other.email, role: 'engineer' });
+    const token = linkToken((await readMail(app.deps.db, other.email)).text, 'invite');
+    const wrong = await app
+      .client()
+      .post('/api/auth/accept-invite', { token, name: 'X', password: 'not-their-password' });
+    expect(wrong.status).toBe(400);
+    expect(wrong.body.error.field).toBe('password');
+    const right = await app
+      .client()
+      .post('/api/auth/accept-invite', { token, name: 'X', password: other.password });
+    expect(right.status).toBe(200);
+    expect(right.body.user).toMatchObject({ role: 'engineer', workspace: { id: admin.workspaceId } });
+  });
+});
+
+describe('roles admin', () => {
+  it('keeps at least one admin in a workspace', async () => {
+    const admin = await buildUser(app.deps.db, { role: 'admin' });
+    const adminClient = await signIn(app, admin);
+    const demote = await adminClient.patch(`/api/users/${admin.id}`, { role: 'viewer' });
+    expect(demote.status).toBe(409);
+    expect((await adminClient.delete(`/api/users/${admin.id}`)).status).toBe(409);
+  });
+
+  it('answers 404 for users of other workspaces, unknown or malformed ids', async () => {
+    const admin = await buildUser(app.deps.db, { role: 'admin' });
+    const stranger = await buildUser(app.deps.db, { role: 'viewer' });
+    const adminClient = await signIn(app, admin);
+    expect((await adminClient.patch(`/api/users/${stranger.id}`, { role: 'admin' })).status).toBe(404);
+    expect((await adminClient.patch('/api/users/12345', { role: 'admin' })).status).toBe(404);
+    expect((await adminClient.delete('/api/users/not-a-uuid')).status).toBe(404);
+  });
+});
