@@ -1,0 +1,49 @@
+import { useQuery } from '@tanstack/react-query';
+import { adminQueries } from '../api/queries/adminQueries.js';
+import type { AuditEntry } from '../api/types.js';
+import { ErrorNote, Loading } from '../components/QueryState.js';
+import { Panel } from '../components/ui.js';
+import { formatWhen } from '../format/formatWhen.js';
+
+function actorOf(e: AuditEntry): string {
+  if (e.actorEmail) return e.actorEmail;
+  if (typeof e.actor === 'string') return e.actor;
+  return e.actor?.email ?? '—';
+}
+
+export function AuditPanel() {
+  const audit = useQuery(adminQueries.audit());
+  return (
+    <Panel title="Audit log">
+      {audit.isPending && <Loading />}
+      {audit.isError && <ErrorNote error={audit.error} onRetry={() => audit.refetch()} />}
+      {audit.data?.length === 0 && <p className="text-sm text-dim">Nothing recorded yet.</p>}
+      {audit.data && audit.data.length > 0 && (
+        <table className="w-full text-sm">
+          <thead>
+            <tr className="border-b border-rule text-left text-xs text-dim">
+              <th className="py-2 font-medium">When</th>
+              <th className="font-medium">Who</th>
+              <th className="font-medium">Action</th>
+              <th className="font-medium">Detail</th>
+            </tr>
+          </thead>
+          <tbody>
+            {audit.data.map((e) => (
+              <tr key={e.id} className="border-b border-rule/60 align-top">
+                <td className="num py-1.5 pr-3 text-xs whitespace-nowrap">
+                  {formatWhen(e.at ?? e.createdAt)}
+                </td>
+                <td className="pr-3">{actorOf(e)}</td>
+                <td className="pr-3 font-medium">{e.action}</td>
+                <td className="num text-xs break-all text-dim">
+                  {e.target ?? ''} {e.detail ? JSON.stringify(e.detail) : ''}
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      )}
+    </Panel>
+  );
+}

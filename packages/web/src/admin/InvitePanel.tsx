@@ -1,0 +1,70 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useState } from 'react';
+import { api } from '../api/client.js';
+import { adminQueries } from '../api/queries/adminQueries.js';
+import { ROLES, type Role } from '../api/types.js';
+import { ErrorNote } from '../components/QueryState.js';
+import { Button, inputClass, labelClass, Panel } from '../components/ui.js';
+
+export function InvitePanel() {
+  const qc = useQueryClient();
+  const [email, setEmail] = useState('');
+  const [role, setRole] = useState<Role>('engineer');
+  const invite = useMutation({
+    mutationFn: () => api.admin.invite(email, role),
+    onSuccess: () => qc.invalidateQueries({ queryKey: adminQueries.all }),
+  });
+  return (
+    <Panel title="Invite someone">
+      <form
+        className="flex flex-wrap items-end gap-3"
+        onSubmit={(e) => {
+          e.preventDefault();
+          invite.mutate();
+        }}
+      >
+        <div className="min-w-64 flex-1">
+          <label htmlFor="invite-email" className={labelClass}>
+            Email
+          </label>
+          <input
+            id="invite-email"
+            type="email"
+            required
+            className={inputClass}
+            value={email}
+            onChange={(e) => setEmail(e.target.value)}
+          />
+        </div>
+        <div>
+          <label htmlFor="invite-role" className={labelClass}>
+            Role
+          </label>
+          <select
+            id="invite-role"
+            className={inputClass}
+            value={role}
+            onChange={(e) => setRole(e.target.value as Role)}
+          >
+            {ROLES.map((r) => (
+              <option key={r}>{r}</option>
+            ))}
+          </select>
+        </div>
+        <Button tone="primary" type="submit" disabled={invite.isPending}>
+          Send invite
+        </Button>
+      </form>
+      {invite.isError && (
+        <div className="mt-3">
+          <ErrorNote error={invite.error} />
+        </div>
+      )}
+      {invite.isSuccess && (
+        <p role="status" className="mt-3 text-sm text-moss">
+          Invitation sent to {email}. In development it lands in the Dev inbox tab.
+        </p>
+      )}
+    </Panel>
+  );
+}

@@ -1,0 +1,140 @@
+import { MAX_SAMPLES, MAX_SEED_LENGTH, SAMPLING_PLANS } from '@sigmatail/engine';
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useState } from 'react';
+import { useNavigate } from 'react-router';
+import { api } from '../api/client.js';
+import { runQueries } from '../api/queries/runQueries.js';
+import type { SamplingPlan } from '../api/types.js';
+import { can } from '../auth/permissions.js';
+import { useMe } from '../auth/useMe.js';
+import { ErrorNote } from '../components/QueryState.js';
+import { Button, inputClass, labelClass, Panel } from '../components/ui.js';
+
+const PLAN_LABELS: Record<SamplingPlan, string> = {
+  random: 'Monte Carlo (independent draws)',
+  lhs: 'Latin hypercube',
+  sobol: 'Sobol sequence (scrambled)',
+};
+
+/** Launch a run of the design's latest revision: N, seed, sampling plan and extra analyses. */
+export function RunLaunchPanel({ designId, revision }: { designId: string; revision?: number }) {
+  const me = useMe();
+  const qc = useQueryClient();
+  const navigate = useNavigate();
+  const allowed = can(me.role, 'launchRun');
+  const [samples, setSamples] = useState('100000');
+  const [seed, setSeed] = useState('');
+  const [plan, setPlan] = useState<SamplingPlan>('random');
+  const [influence, setInfluence] = useState(true);
+  const [worstCase, setWorstCase] = useState(true);
+  const [varianceIndices, setVarianceIndices] = useState(false);
+  const n = Number(samples);
+  const nError =
+    !Number.isInteger(n) || n < 1 || n > MAX_SAMPLES
+      ? `A whole number from 1 to ${MAX_SAMPLES.toLocaleString('en-US')}`
+      : null;
+  const launch = useMutation({
+    mutationFn: () =>
+      api.runs.launch({
+        designId,
+        revision,
+        samples: n,
+        seed: seed.trim() || undefined,
+        plan,
+        analyses: { influence, worstCase, varianceIndices },
+      }),
+    onSuccess: async ({ id }) => {
+      await qc.invalidateQueries({ queryKey: runQueries.all });
+      navigate(`/runs/${id}`);
+    },
+  });
+  return (
+    <Panel title="Launch a run">
+      {!allowed && (
+        <p className="mb-3 text-sm text-dim" role="note">
+          Your role ({me.role}) cannot launch runs.
+        </p>
+      )}
+      <form
+        onSubmit={(e) => {
+          e.preventDefault();
+          if (!nError) launch.mutate();
+        }}
+      >
+        <fieldset disabled={!allowed} className="grid gap-3 sm:grid-cols-3">
+          <div>
+            <label htmlFor="run-n" className={labelClass}>
+              Samples N
+            </label>
+            <input
+              id="run-n"
+              inputMode="numeric"
+              className={`${inputClass} num`}
+              value={samples}
+              onChange={(e) => setSamples(e.target.value)}
+              aria-invalid={!!nError}
+            />
+            {nError && <p className="mt-0.5 text-xs text-brick">{nError}</p>}
+          </div>
+          <div>
+            <label htmlFor="run-seed" className={labelClass}>
+              Seed (blank = new)
+            </label>
+            <input
+              id="run-seed"
+              maxLength={MAX_SEED_LENGTH}
+              className={`${inputClass} num`}
+              value={seed}
+              onChange={(e) => setSeed(e.target.value)}
+            />
+          </div>
+          <div>
+            <label htmlFor="run-plan" className={labelClass}>
+              Sampling plan
+            </label>
+            <select
+              id="run-plan"
+              className={inputClass}
+              value={plan}
+              onChange={(e) => setPlan(e.target.value as SamplingPlan)}
+            >
+              {SAMPLING_PLANS.map((p) => (
+                <option key={p} value={p}>
+                  {PLAN_LABELS[p]}
+                </option>
+              ))}
+            </select>
+          </div>
+          <div className="flex flex-wrap gap-4 text-sm sm:col-span-3">
+            <label className="flex items-center gap-1.5">
+              <input type="checkbox" checked={influence} onChange={(e) => setInfluence(e.target.checked)} />{' '}
+              Influence
+            </label>
+            <label className="flex items-center gap-1.5">
+              <input type="checkbox" checked={worstCase} onChange={(e) => setWorstCase(e.target.checked)} />{' '}
+              Worst case
+            </label>
+            <label className="flex items-center gap-1.5">
+              <input
+                type="checkbox"
+                checked={varianceIndices}
+                onChange={(e) => setVarianceIndices(e.target.checked)}
+              />{' '}
+              Variance indices (Sobol, slower)
+            </label>
+          </div>
+          <div className="sm:col-span-3">
+            <Button tone="primary" type="submit" disabled={!allowed || launch.isPending || !!nError}>
+              {launch.isPending ? 'Launching…' : 'Launch run'}
+            </Button>
+          </div>
+        </fieldset>
+      </form>
+      {launch.isError && (
+        <div className="mt-3">
+          <ErrorNote error={launch.error} />
+        </div>
+      )}
+    </Panel>
+  );
+}
