@@ -113,7 +113,10 @@ describe('designs', () => {
       );
     const before = await count();
     const bad = doc('Broken', {
-      parts: { ...doc('x').parts, rk: { value: '4k7', tolerance: 150, spread: { kind: 'normal' } } },
+      parts: {
+        ...(DEMO_DESIGNS[0] as { parts: object }).parts,
+        rk: { value: '4k7', tolerance: 150, spread: { kind: 'normal' } },
+      },
     });
     const res = await engineer.post('/api/designs', { document: bad });
     expect(res.status).toBe(400);
