@@ -1,0 +1,47 @@
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { fileURLToPath } from 'node:url';
+import { parseRunArgs, runCommand } from './runCommand.js';
+
+const example = fileURLToPath(new URL('../../examples/guitar-12ax7-cap-coupled.json', import.meta.url));
+
+describe('sigmatail run', () => {
+  afterEach(() => vi.restoreAllMocks());
+
+  it('parses the documented arguments', () => {
+    expect(parseRunArgs(['d.json', '--samples', '1000', '--seed', 'abc', '--plan', 'lhs']).plan).toEqual({
+      samples: 1000,
+      seed: 'abc',
+      plan: 'lhs',
+      chunkSize: 65_536,
+    });
+    expect(parseRunArgs(['d.json', '--samples=5']).plan.plan).toBe('random');
+  });
+
+  it.each([
+    [['d.json'], '--samples is required'],
+    [['d.json', '--samples', '0'], '--samples must be an integer 1..100000000'],
+    [['d.json', '--samples', '1e3'], '--samples must be an integer 1..100000000'],
+    [['d.json', '--samples', '100000001'], '--samples must be an integer 1..100000000'],
+    [['d.json', '--samples', '10', '--plan', 'grid'], '--plan must be one of random|lhs|sobol'],
+    [['d.json', '--samples', '10', '--chunks', '2'], 'unknown option --chunks'],
+    [['--samples', '10'], 'missing design file'],
+  ])('rejects %j', (args, message) => {
+    expect(() => parseRunArgs(args)).toThrow(message);
+  });
+
+  it('prints one JSON object and exits 0; bad input exits 2 with one line', async () => {
+    const out: string[] = [];
+    const err: string[] = [];
+    vi.spyOn(process.stdout, 'write').mockImplementation((s) => (out.push(String(s)), true));
+    vi.spyOn(process.stderr, 'write').mockImplementation((s) => (err.push(String(s)), true));
+    expect(await runCommand([example, '--samples', '2000', '--seed', '3', '--plan', 'sobol'])).toBe(0);
+    const r = JSON.parse(out.join(''));
+    expect(r.samples).toBe(2000);
+    expect(Object.keys(r.metrics.gainDiff.quantiles)).toEqual(['p0.135', 'p2.5', 'p50', 'p97.5', 'p99.865']);
+    expect(r.metrics.gainDiff.histogram.counts.reduce((a: number, b: number) => a + b, 0)).toBeGreaterThan(0);
+    expect(r.joint.wilson).toHaveLength(2);
+    expect(r.worstCase.method).toBe('corners');
+    expect(await runCommand([example, '--samples', 'many'])).toBe(2);
+    expect(err.join('')).toBe('sigmatail run: --samples must be an integer 1..100000000\n');
+  });
+});
