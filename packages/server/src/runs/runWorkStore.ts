@@ -1,5 +1,5 @@
 import { sql } from 'kysely';
-import type { JobPlan } from '../worker/runJob.js';
+import { EXTRAS_INDEX, type JobPlan } from '../worker/runJob.js';
 import type { Db } from './runsDb.js';
 
 /** What a worker needs to compute any chunk of a run. */
@@ -25,16 +25,21 @@ export class RunWorkStore {
     };
   }
 
-  /** Stored chunk results as JSON text, in chunk order. */
-  async chunkTexts(runId: string): Promise<string[]> {
+  /** Stored results as JSON text: the once-per-run task's, and the sample chunks' in chunk order. */
+  async chunkTexts(runId: string): Promise<{ extras: string; chunks: string[] }> {
     const rows = await this.db
       .selectFrom('run_chunks')
-      .select(sql<string>`result::text`.as('text'))
+      .select(['chunk_index', sql<string>`result::text`.as('text')])
       .where('run_id', '=', runId)
       .where('state', '=', 'done')
       .orderBy('chunk_index')
       .execute();
-    return rows.map((r) => r.text);
+    const extras = rows.find((r) => r.chunk_index === EXTRAS_INDEX);
+    if (!extras) throw new Error(`run ${runId} has no stored extras`);
+    return {
+      extras: extras.text,
+      chunks: rows.filter((r) => r.chunk_index !== EXTRAS_INDEX).map((r) => r.text),
+    };
   }
 
   /**

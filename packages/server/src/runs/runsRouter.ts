@@ -1,6 +1,103 @@
-import { Router } from 'express';
+import { parseDesign, type RunPlan } from '@sigmatail/engine';
+import { Router, type Request } from 'express';
+import type { AppDeps } from '../appDeps.js';
+import { recordAudit } from '../audit/recordAudit.js';
+import { requireAuth, requireRole } from '../auth/requireRole.js';
+import { HttpError } from '../http/httpError.js';
+import { uuidParam } from '../http/uuidParam.js';
+import { notifyRuns } from '../worker/runsChannel.js';
+import { launchRun } from './launchRun.js';
+import { launchRunBody, listRunsQuery, type RunView } from './runSchemas.js';
+import { cancelRun, findResultsText, findRun, findRunDesign, listRuns } from './runsRepo.js';
+import { streamSamplesCsv } from './streamSamplesCsv.js';
 
-/** Runs API (designs' runs, queue, results, export). Filled in by the runs work; mounted under /api. */
-export function createRunsRouter(_deps: unknown): Router {
-  return Router();
+const LAUNCHERS = ['engineer', 'production'] as const; // and admin, who passes every check
+
+/** Runs API: launch, status and progress, list, cancel, results, exports (mounted under /api). */
+export function createRunsRouter({ db }: AppDeps): Router {
+  const router = Router();
+  const loadRun = async (req: Request): Promise<RunView> => {
+    const run = await findRun(db, req.user!.workspaceId, uuidParam(req, 'id', 'run'));
+    if (!run) throw new HttpError(404, 'run not found');
+    return run;
+  };
+  const loadDone = async (req: Request): Promise<RunView> => {
+    const run = await loadRun(req);
+    if (run.status !== 'done')
+      throw new HttpError(409, `run is ${run.status}; results exist once it is done`);
+    return run;
+  };
+  const audit = (req: Request, action: string, runId: string, detail: Record<string, unknown> = {}) =>
+    recordAudit(db, {
+      workspaceId: req.user!.workspaceId,
+      userId: req.user!.id,
+      action,
+      target: runId,
+      detail,
+    });
+
+  router.post('/runs', requireRole(...LAUNCHERS), async (req, res) => {
+    const id = await launchRun(db, req.user!, launchRunBody.parse(req.body));
+    res.status(202).location(`/api/runs/${id}`).json({ id });
+  });
+
+  router.get('/runs', requireAuth, async (req, res) => {
+    res.json({ runs: await listRuns(db, req.user!.workspaceId, listRunsQuery.parse(req.query)) });
+  });
+
+  router.get('/runs/:id', requireAuth, async (req, res) => {
+    res.json({ run: await loadRun(req) });
+  });
+
+  router.post('/runs/:id/cancel', requireRole(...LAUNCHERS), async (req, res) => {
+    const run = await loadRun(req);
+    if (!(await cancelRun(db, req.user!.workspaceId, run.id))) {
+      throw new HttpError(409, `run is already ${run.status}`);
+    }
+    await notifyRuns(db, 'changed', run.id);
+    await audit(req, 'run.cancel', run.id, { status: run.status, progress: run.progress });
+    res.json({ run: await loadRun(req) });
+  });
+
+  router.get('/runs/:id/results', requireAuth, async (req, res) => {
+    const run = await loadDone(req);
+    const text = await findResultsText(db, run.id);
+    res.type('application/json').send(`{"run":${JSON.stringify(run)},"results":${text}}`);
+  });
+
+  router.get('/runs/:id/export.json', requireRole(...LAUNCHERS), async (req, res) => {
+    const run = await loadDone(req);
+    const text = await findResultsText(db, run.id);
+    await audit(req, 'run.export', run.id, { format: 'json' });
+    res.attachment(`sigmatail-run-${run.id}.json`);
+    res.type('application/json').send(`{"run":${JSON.stringify(run)},"results":${text}}`);
+  });
+
+  router.get('/runs/:id/export.csv', requireRole(...LAUNCHERS), async (req, res) => {
+    const run = await loadDone(req);
+    const parsed = parseDesign(await findRunDesign(db, run.id));
+    if (!parsed.ok)
+      throw new HttpError(422, 'the run’s design snapshot no longer parses; export is not possible');
+    const plan: RunPlan = {
+      samples: run.samples,
+      seed: run.seed,
+      plan: run.plan,
+      chunkSize: run.chunkSize,
+      analyses: run.analyses,
+    };
+    await audit(req, 'run.export', run.id, { format: 'csv', samples: run.samples });
+    res.attachment(`sigmatail-run-${run.id}-samples.csv`);
+    res.type('text/csv');
+    try {
+      await streamSamplesCsv(res, parsed.design, plan);
+    } catch (err) {
+      if (!res.headersSent) throw err;
+      console.error(`export of run ${run.id} broke off: ${(err as Error).message}`);
+      res.destroy();
+      return;
+    }
+    res.end();
+  });
+
+  return router;
 }

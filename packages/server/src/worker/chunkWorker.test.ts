@@ -33,7 +33,7 @@ function directResult(samples: number, chunkSize: number, seed: string) {
   const design = fakeJob.prepare({ spinPerSample: 1 });
   const chunks: FakeChunk[] = [];
   for (let k = 0; k < Math.ceil(samples / chunkSize); k++) chunks.push(fakeJob.runChunk(design, plan, k));
-  return fakeJob.merge(design, plan, chunks);
+  return fakeJob.merge(design, plan, chunks, fakeJob.runExtras(design, plan));
 }
 
 describe('ChunkWorker with the fake job', () => {
@@ -48,7 +48,7 @@ describe('ChunkWorker with the fake job', () => {
     await Promise.all(workers.map((w) => w.stop()));
     await pool.destroy();
     const run = await db.selectFrom('runs').selectAll().where('id', '=', runId).executeTakeFirstOrThrow();
-    expect(run.chunks_done).toBe(29);
+    expect(run.chunks_done).toBe(30); // 29 sample chunks and the once-per-run task
     const stored = await db
       .selectFrom('run_results')
       .selectAll()
@@ -62,10 +62,10 @@ describe('ChunkWorker with the fake job', () => {
     const runId = await buildRun(db, { samples: 3_000, chunkSize: 1_000 });
     const q = new ChunkQueue(db, 'dup', 5_000);
     const claimed = await q.claim(10);
-    expect(claimed.map((c) => c.chunkIndex)).toEqual([0, 1, 2]);
+    expect(claimed.map((c) => c.chunkIndex)).toEqual([-1, 0, 1, 2]);
     const first = await q.deliver(runId, 1, '{"x":1}');
     const again = await q.deliver(runId, 1, '{"x":2}');
-    expect(first).toEqual({ kind: 'stored', chunksDone: 1, chunkTotal: 3, mergeNow: false });
+    expect(first).toEqual({ kind: 'stored', chunksDone: 1, chunkTotal: 4, mergeNow: false });
     expect(again).toEqual({ kind: 'ignored' });
     const row = await db
       .selectFrom('run_chunks')
@@ -75,15 +75,16 @@ describe('ChunkWorker with the fake job', () => {
       .executeTakeFirstOrThrow();
     expect(row.result).toEqual({ x: 1 });
     await q.deliver(runId, 0, '{}');
+    await q.deliver(runId, -1, '{}');
     const last = await q.deliver(runId, 2, '{}');
-    expect(last).toMatchObject({ kind: 'stored', chunksDone: 3, mergeNow: true });
+    expect(last).toMatchObject({ kind: 'stored', chunksDone: 4, mergeNow: true });
     expect(await q.deliver(runId, 2, '{}')).toEqual({ kind: 'ignored' });
   });
 
   it('elects exactly one merger when the last chunks land concurrently', async () => {
     const runId = await buildRun(db, { samples: 40_000, chunkSize: 1_000 });
     const queues = Array.from({ length: 8 }, (_, i) => new ChunkQueue(db, `m${i}`, 5_000));
-    const claims = await Promise.all(queues.map((q) => q.claim(5)));
+    const claims = await Promise.all(queues.map((q) => q.claim(6)));
     const deliveries = await Promise.all(
       claims.flatMap((cs, i) => cs.map((c) => queues[i]!.deliver(runId, c.chunkIndex, '{}'))),
     );
@@ -94,12 +95,15 @@ describe('ChunkWorker with the fake job', () => {
   it('takes back an expired lease and fails a run whose chunk keeps dying', async () => {
     const runId = await buildRun(db, { samples: 1_000, chunkSize: 1_000 });
     const dying = new ChunkQueue(db, 'dying', 1, 2); // 1 ms lease: expires at once
-    expect(await dying.claim(1)).toHaveLength(1);
+    expect(await dying.claim(2)).toHaveLength(2);
     await new Promise((r) => setTimeout(r, 20));
-    const again = await dying.claim(1);
-    expect(again).toEqual([{ runId, chunkIndex: 0, attempts: 2 }]);
+    const again = await dying.claim(2);
+    expect(again).toEqual([
+      { runId, chunkIndex: -1, attempts: 2 },
+      { runId, chunkIndex: 0, attempts: 2 },
+    ]);
     await new Promise((r) => setTimeout(r, 20));
-    expect(await dying.claim(1)).toEqual([]); // attempts exhausted
+    expect(await dying.claim(2)).toEqual([]); // attempts exhausted
     expect(await dying.failExhausted()).toEqual([runId]);
     const run = await db
       .selectFrom('runs')

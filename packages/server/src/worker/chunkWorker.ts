@@ -34,6 +34,7 @@ export class ChunkWorker {
   private readonly contexts = new Map<string, RunWorkContext>();
   private readonly merges = new Set<Promise<void>>();
   private stopped = false;
+  private lastSweep = 0;
   private wakeUp: (() => void) | undefined;
   private heartbeatTimer: NodeJS.Timeout | undefined;
   private loopDone: Promise<void> | undefined;
@@ -76,11 +77,15 @@ export class ChunkWorker {
     while (!this.stopped) {
       try {
         await this.fill();
-        const orphan = await this.queue.claimOrphanMerge();
-        if (orphan) this.startMerge(orphan);
-        const failed = await this.queue.failExhausted();
-        for (const id of failed) this.log(`run ${id} failed: a chunk exhausted its attempts`);
-        await this.o.housekeeping?.();
+        // Sweeps run once per poll period, not on every wake (a wake follows every chunk).
+        if (Date.now() - this.lastSweep >= this.o.pollMs) {
+          this.lastSweep = Date.now();
+          const orphan = await this.queue.claimOrphanMerge();
+          if (orphan) this.startMerge(orphan);
+          const failed = await this.queue.failExhausted();
+          for (const id of failed) this.log(`run ${id} failed: a chunk exhausted its attempts`);
+          await this.o.housekeeping?.();
+        }
       } catch (err) {
         this.log(`worker loop: ${(err as Error).message}`);
       }
@@ -145,8 +150,8 @@ export class ChunkWorker {
   private async merge(runId: string): Promise<void> {
     try {
       const ctx = await this.context(runId);
-      const chunks = await this.store.chunkTexts(runId);
-      const task: MergeTask = { kind: 'merge', runId, design: ctx.design, plan: ctx.plan, chunks };
+      const { chunks, extras } = await this.store.chunkTexts(runId);
+      const task: MergeTask = { kind: 'merge', runId, design: ctx.design, plan: ctx.plan, chunks, extras };
       const out = (await this.o.pool.run(task)) as MergeOutput;
       const stored = await this.store.storeResults(runId, this.o.owner, out);
       this.log(stored ? `run ${runId} done (${chunks.length} chunks)` : `run ${runId}: merge discarded`);

@@ -15,8 +15,16 @@ export interface RunJob<Design = unknown, Chunk = unknown, Results = unknown> {
   /** Turns the stored design document into what runChunk needs (parsed once per run per thread). */
   prepare(document: unknown): Design;
   runChunk(design: Design, plan: JobPlan, chunkIndex: number): Chunk;
-  /** Chunks arrive in chunk order. */
-  merge(design: Design, plan: JobPlan, chunks: Chunk[]): Results;
+  /**
+   * The once-per-run work (nominal, influence, worst case...), queued as one more task beside the
+   * chunks (chunk index EXTRAS_INDEX) so it runs in parallel with them instead of inside the merge.
+   */
+  runExtras(design: Design, plan: JobPlan): unknown;
+  /** Chunks arrive in chunk order; `extras` is what runExtras returned. */
+  merge(design: Design, plan: JobPlan, chunks: Chunk[], extras: unknown): Results;
   /** Scalar columns stored beside the results, for listing without reading the whole document. */
   summarize(results: Results): { validCount: number | null; jointYield: number | null };
 }
+
+/** Chunk index of a run's once-per-run task in the queue (it sorts first, so it starts early). */
+export const EXTRAS_INDEX = -1;

@@ -1,12 +1,17 @@
 import pg from 'pg';
 import { sql } from 'kysely';
-import type { Db } from '../runs/runsDb.js';
+import type { Database } from '@sigmatail/db';
+import type { Kysely, Transaction } from 'kysely';
 
 /** PostgreSQL NOTIFY channel that wakes workers (a run launched) and tells them of cancels. */
 export const RUNS_CHANNEL = 'sigmatail_runs';
 
 /** Tells every listening worker that `runId` was launched or changed state. */
-export async function notifyRuns(db: Db, event: 'launched' | 'changed', runId: string): Promise<void> {
+export async function notifyRuns(
+  db: Kysely<Database> | Transaction<Database>,
+  event: 'launched' | 'changed',
+  runId: string,
+): Promise<void> {
   await sql`select pg_notify(${RUNS_CHANNEL}, ${`${event}:${runId}`})`.execute(db);
 }
 

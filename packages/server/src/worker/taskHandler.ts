@@ -1,8 +1,18 @@
-import type { JobPlan, RunJob } from './runJob.js';
+import { EXTRAS_INDEX, type JobPlan, type RunJob } from './runJob.js';
 
 export type ChunkTask = { kind: 'chunk'; runId: string; design: unknown; plan: JobPlan; chunkIndex: number };
-/** `chunks` are the stored JSON texts, in chunk order (parsed here, off the worker's main thread). */
-export type MergeTask = { kind: 'merge'; runId: string; design: unknown; plan: JobPlan; chunks: string[] };
+/**
+ * `chunks` are the stored JSON texts in chunk order, `extras` the once-per-run task's (parsed here,
+ * off the worker's main thread).
+ */
+export type MergeTask = {
+  kind: 'merge';
+  runId: string;
+  design: unknown;
+  plan: JobPlan;
+  chunks: string[];
+  extras: string;
+};
 export type MergeOutput = { json: string; validCount: number | null; jointYield: number | null };
 
 /**
@@ -25,11 +35,18 @@ export function createTaskHandler<D, C, R>(job: RunJob<D, C, R>) {
   function handle(task: MergeTask): MergeOutput;
   function handle(task: ChunkTask | MergeTask): string | MergeOutput {
     const design = designOf(task.runId, task.design);
-    if (task.kind === 'chunk') return JSON.stringify(job.runChunk(design, task.plan, task.chunkIndex));
+    if (task.kind === 'chunk') {
+      const out =
+        task.chunkIndex === EXTRAS_INDEX
+          ? job.runExtras(design, task.plan)
+          : job.runChunk(design, task.plan, task.chunkIndex);
+      return JSON.stringify(out);
+    }
     const results = job.merge(
       design,
       task.plan,
       task.chunks.map((c) => JSON.parse(c) as C),
+      JSON.parse(task.extras),
     );
     return { json: JSON.stringify(results), ...job.summarize(results) };
   }

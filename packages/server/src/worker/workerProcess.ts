@@ -1,7 +1,10 @@
 import crypto from 'node:crypto';
 import os from 'node:os';
 import { createDb } from '@sigmatail/db';
+import { DEFAULT_CONFIG } from '../config.js';
+import { createSmtpMailer, type Mailer } from '../mail/mailer.js';
 import type { Db } from '../runs/runsDb.js';
+import { sendRunNotifications } from '../runs/sendRunNotifications.js';
 import { ChunkWorker } from './chunkWorker.js';
 import { createChunkPool, defaultThreads } from './chunkPool.js';
 import { listenRuns } from './runsChannel.js';
@@ -10,8 +13,22 @@ export type WorkerProcessOptions = {
   env: NodeJS.ProcessEnv;
   /** Thread file to run (tests pass a fake job's); default: the engine's. */
   taskUrl?: URL;
-  housekeeping?: (db: Db) => () => Promise<void>;
 };
+
+/** Mails owners about finished large runs; after an SMTP failure, waits before trying again. */
+function notificationHousekeeping(db: Db, mailer: Mailer, appUrl: string, log: (line: string) => void) {
+  let retryAt = 0;
+  return async () => {
+    if (Date.now() < retryAt) return;
+    try {
+      const n = await sendRunNotifications(db, mailer, appUrl);
+      if (n > 0) log(`mailed ${n} run notification(s)`);
+    } catch (err) {
+      log(`run notifications: ${(err as Error).message}; retrying in 30 s`);
+      retryAt = Date.now() + 30_000;
+    }
+  };
+}
 
 function positiveInt(env: NodeJS.ProcessEnv, name: string, fallback: number): number {
   const raw = env[name];
@@ -38,6 +55,11 @@ export async function runWorkerProcess(o: WorkerProcessOptions): Promise<void> {
   const log = (line: string) => process.stdout.write(`[worker ${owner}] ${line}\n`);
 
   const db = createDb(url, { max: 4 });
+  const mailer = createSmtpMailer({
+    port: positiveInt(o.env, 'SMTP_PORT', 2525),
+    from: o.env.SIGMATAIL_MAIL_FROM || DEFAULT_CONFIG.mailFrom,
+  });
+  const appUrl = o.env.APP_URL || DEFAULT_CONFIG.appUrl;
   const pool = createChunkPool({ threads, taskUrl: o.taskUrl });
   const worker = new ChunkWorker({
     db,
@@ -47,7 +69,7 @@ export async function runWorkerProcess(o: WorkerProcessOptions): Promise<void> {
     leaseMs,
     pollMs,
     log,
-    housekeeping: o.housekeeping?.(db),
+    housekeeping: notificationHousekeeping(db, mailer, appUrl, log),
   });
   const channel = listenRuns(
     url,
@@ -65,6 +87,7 @@ export async function runWorkerProcess(o: WorkerProcessOptions): Promise<void> {
     await worker.stop();
     await channel.close();
     await pool.destroy();
+    mailer.close();
     await db.destroy();
     process.exit(0);
   };

@@ -1,6 +1,6 @@
 import crypto from 'node:crypto';
 import type { RunStatus } from '@sigmatail/db';
-import { sql } from 'kysely';
+import { insertRunChunks, queuedTasks } from '../insertRunChunks.js';
 import type { Db } from '../runsDb.js';
 
 type Overrides = Partial<{
@@ -52,12 +52,11 @@ export async function buildRun(db: Db, o: Overrides = {}): Promise<string> {
       analyses: '{}',
       design: JSON.stringify(o.design ?? { spinPerSample: 1 }),
       engine_version: 'test',
-      chunk_total: chunkTotal,
+      chunk_total: queuedTasks(chunkTotal),
       status: o.status,
     })
     .returning('id')
     .executeTakeFirstOrThrow();
-  await sql`insert into run_chunks (run_id, chunk_index)
-    select ${run.id}::uuid, g from generate_series(0, ${chunkTotal - 1}::int) g`.execute(db);
+  await insertRunChunks(db, run.id, chunkTotal);
   return run.id;
 }

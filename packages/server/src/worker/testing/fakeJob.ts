@@ -37,7 +37,11 @@ export const fakeJob: RunJob<{ spin: number }, FakeChunk, FakeResults> = {
     }
     return { chunkIndex, count: end - start, sum, min, max };
   },
-  merge(_design, _plan, chunks) {
+  runExtras(design, plan) {
+    return { spin: design.spin, samples: plan.samples };
+  },
+  merge(_design, _plan, chunks, extras) {
+    if ((extras as { samples?: number }).samples !== _plan.samples) throw new Error('extras missing');
     let sum = 0;
     let count = 0;
     let min = Infinity;

@@ -1,0 +1,28 @@
+import {
+  mergeChunks,
+  parseDesign,
+  runChunk,
+  runExtras,
+  type ChunkResult,
+  type ResolvedDesign,
+  type RunResults,
+} from '@sigmatail/engine';
+import type { RunJob } from './runJob.js';
+
+/** The real run body: the engine's chunked Monte Carlo on the stored design snapshot. */
+export const engineJob: RunJob<ResolvedDesign, ChunkResult, RunResults> = {
+  prepare(document) {
+    const parsed = parseDesign(document);
+    if (!parsed.ok) {
+      const first = parsed.errors[0];
+      throw new Error(
+        `stored design is invalid: ${first ? `${first.path}: ${first.message}` : 'unknown error'}`,
+      );
+    }
+    return parsed.design;
+  },
+  runChunk: (design, plan, chunkIndex) => runChunk(design, plan, chunkIndex),
+  runExtras: (design, plan) => runExtras(design, plan),
+  merge: (design, plan, chunks, extras) => mergeChunks(design, plan, chunks, extras as Partial<RunResults>),
+  summarize: (results) => ({ validCount: results.validCount, jointYield: results.joint.yield }),
+};
