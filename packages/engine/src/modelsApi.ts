@@ -18,3 +18,6 @@ export * from './model/stagePoint.js';
 export * from './model/trimRl2.js';
 export * from './model/ratingWarnings.js';
 export * from './model/nominalResults.js';
+export * from './model/nodalGains.js';
+export * from './model/denseSolve.js';
+export * from './model/biasPredictor.js';

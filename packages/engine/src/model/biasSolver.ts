@@ -96,39 +96,53 @@ function evalAt(c: BiasCircuit, ia1: number, ia2: number, bp: BiasPoint): void {
  */
 export function solveBiasInto(c: BiasCircuit, bp: BiasPoint, warm: boolean): BiasStatus {
   const span = c.bPlus - c.tail;
-  if (!(span > 0) || !(c.bPlus > 0)) return finish(c, bp, 'supply-too-low', 0);
+  if (!(span > 0) || !(c.bPlus > 0)) return finish(c, bp, 'supply-too-low', 0, 0, 0);
   const rkk = c.rk + c.rt;
   const rg = c.capCoupled ? c.rk : rkk;
   const max1 = span / (c.rl1 + rkk);
   const max2 = span / (c.rl2 + rkk);
   let x1 = warm && bp.ia1 > 0 && bp.ia1 < max1 ? bp.ia1 : 0.3 * max1;
   let x2 = warm && bp.ia2 > 0 && bp.ia2 < max2 ? bp.ia2 : 0.3 * max2;
-  for (let it = 1; it <= 40; it++) {
-    evalAt(c, x1, x2, bp);
-    const f1 = x1 - p1.ia;
-    const f2 = x2 - p2.ia;
+  evalAt(c, x1, x2, bp);
+  let f1 = x1 - p1.ia;
+  let f2 = x2 - p2.ia;
+  let norm = Math.abs(f1) + Math.abs(f2);
+  for (let it = 1; it <= 60; it++) {
     const j11 = 1 + p1.ga * (c.rl1 + rkk) + p1.gm * rg;
     const j12 = p1.ga * rkk + p1.gm * rg;
     const j21 = p2.ga * rkk + p2.gm * rg;
     const j22 = 1 + p2.ga * (c.rl2 + rkk) + p2.gm * rg;
     const det = j11 * j22 - j12 * j21;
-    let d1 = (f1 * j22 - f2 * j12) / det;
-    let d2 = (j11 * f2 - j21 * f1) / det;
-    // Keep the iterate inside the physical box: halve the way to a bound instead of crossing it.
-    let n1 = x1 - d1;
-    let n2 = x2 - d2;
-    if (n1 < 0) n1 = 0.5 * x1;
-    else if (n1 > max1) n1 = 0.5 * (x1 + max1);
-    if (n2 < 0) n2 = 0.5 * x2;
-    else if (n2 > max2) n2 = 0.5 * (x2 + max2);
-    d1 = n1 - x1;
-    d2 = n2 - x2;
+    const d1 = (f1 * j22 - f2 * j12) / det;
+    const d2 = (j11 * f2 - j21 * f1) / det;
+    // Converged: the Newton update is below 1e-10 of the current, so take it without another
+    // model evaluation (gm and rp from the last evaluation differ by a relative ~1e-10).
+    if (Math.abs(d1) <= 1e-10 * x1 + 1e-18 && Math.abs(d2) <= 1e-10 * x2 + 1e-18) {
+      return finish(c, bp, classify(bp, x1 - d1, x2 - d2), it, x1 - d1, x2 - d2);
+    }
+    // Backtracking on |F1| + |F2|: the Newton direction always descends it (F is monotone), so
+    // this cannot cycle the way a bare Newton step does between cut-off and saturation.
+    let t = 1;
+    let n1 = x1;
+    let n2 = x2;
+    for (let k = 0; k < 40; k++) {
+      n1 = x1 - t * d1;
+      n2 = x2 - t * d2;
+      // Stay inside the physical box [0, Imax]: halve the way to a bound instead of crossing it.
+      if (n1 < 0) n1 = 0.5 * x1;
+      else if (n1 > max1) n1 = 0.5 * (x1 + max1);
+      if (n2 < 0) n2 = 0.5 * x2;
+      else if (n2 > max2) n2 = 0.5 * (x2 + max2);
+      evalAt(c, n1, n2, bp);
+      f1 = n1 - p1.ia;
+      f2 = n2 - p2.ia;
+      if (Math.abs(f1) + Math.abs(f2) <= (1 - 1e-4 * t) * norm) break;
+      t *= 0.5;
+    }
+    norm = Math.abs(f1) + Math.abs(f2);
     x1 = n1;
     x2 = n2;
-    if (Math.abs(d1) <= 1e-12 * x1 + 1e-16 && Math.abs(d2) <= 1e-12 * x2 + 1e-16) {
-      evalAt(c, x1, x2, bp);
-      return finish(c, bp, classify(bp, x1, x2), it);
-    }
+    if (norm <= 1e-15 * (x1 + x2)) return finish(c, bp, classify(bp, x1, x2), it, p1.ia, p2.ia);
   }
   return bisect(c, bp, max1, max2);
 }
@@ -160,7 +174,7 @@ function bisect(c: BiasCircuit, bp: BiasPoint, max1: number, max2: number): Bias
   const x1 = innerIa1(c, bp, x2, max1);
   evalAt(c, x1, x2, bp);
   const ok = Math.abs(x1 - p1.ia) <= 1e-9 * (x1 + 1e-9) && Math.abs(x2 - p2.ia) <= 1e-9 * (x2 + 1e-9);
-  return finish(c, bp, ok ? classify(bp, x1, x2) : 'no-convergence', 999);
+  return finish(c, bp, ok ? classify(bp, x1, x2) : 'no-convergence', 999, p1.ia, p2.ia);
 }
 
 function classify(bp: BiasPoint, x1: number, x2: number): BiasStatus {
@@ -169,15 +183,30 @@ function classify(bp: BiasPoint, x1: number, x2: number): BiasStatus {
   return 'ok';
 }
 
-function finish(_c: BiasCircuit, bp: BiasPoint, status: BiasStatus, it: number): BiasStatus {
+/** Records the result; voltages in bp come from the last evaluation, corrected to ia1, ia2. */
+function finish(
+  c: BiasCircuit,
+  bp: BiasPoint,
+  status: BiasStatus,
+  it: number,
+  ia1: number,
+  ia2: number,
+): BiasStatus {
   bp.status = status;
   bp.iterations = it;
   if (status === 'supply-too-low') {
     bp.ia1 = bp.ia2 = bp.gm1 = bp.gm2 = bp.ga1 = bp.ga2 = Number.NaN;
     return status;
   }
-  bp.ia1 = p1.ia;
-  bp.ia2 = p2.ia;
+  bp.ia1 = ia1;
+  bp.ia2 = ia2;
+  const i = ia1 + ia2;
+  bp.vj = c.tail + i * c.rt;
+  bp.vk = bp.vj + i * c.rk;
+  bp.va1 = c.bPlus - ia1 * c.rl1;
+  bp.va2 = c.bPlus - ia2 * c.rl2;
+  bp.vgk1 = (c.capCoupled ? bp.vj : c.vg1) - bp.vk;
+  bp.vgk2 = (c.capCoupled ? bp.vj : c.vg2) - bp.vk;
   bp.gm1 = p1.gm;
   bp.gm2 = p2.gm;
   bp.ga1 = p1.ga;

@@ -23,34 +23,6 @@ export interface SmallSignalCircuit {
 }
 
 /**
- * Solves [[m11 m12 m13][m21 m22 m23][m31 m32 m33]]·x = r by Cramer's rule; returns component `k`.
- * Hand-unrolled so the per-sample path allocates nothing.
- */
-function cramer3(
-  m11: number,
-  m12: number,
-  m13: number,
-  m21: number,
-  m22: number,
-  m23: number,
-  m31: number,
-  m32: number,
-  m33: number,
-  r1: number,
-  r2: number,
-  r3: number,
-  k: 0 | 1 | 2,
-): number {
-  const c11 = m22 * m33 - m23 * m32;
-  const c12 = m23 * m31 - m21 * m33;
-  const c13 = m21 * m32 - m22 * m31;
-  const det = m11 * c11 + m12 * c12 + m13 * c13;
-  if (k === 0) return (r1 * c11 + m12 * (r3 * m23 - r2 * m33) + m13 * (r2 * m32 - r3 * m22)) / det;
-  if (k === 1) return (m11 * (r2 * m33 - m23 * r3) + r1 * c12 + m13 * (m21 * r3 - r2 * m31)) / det;
-  return (m11 * (m22 * r3 - r2 * m32) + m12 * (r2 * m31 - m21 * r3) + r1 * c13) / det;
-}
-
-/**
  * Exact midband gains by the node equations reduced by hand to three unknowns (Vk, VJ, Vg1).
  * Grids draw no current, so each plate current is i = (mu·vg − (mu+1)·vk)/(rp + RL∥Rload) and the
  * plate nodes drop out. Handles RG1, RG2, Rload1/2, source resistance and unequal sections;
@@ -75,35 +47,56 @@ export function reducedNodalGainsInto(c: SmallSignalCircuit, out: StageGains): S
   const b1 = c.mu1 / (c.rp1 + rle1);
   const a2 = (c.mu2 + 1) / (c.rp2 + rle2);
   const b2 = c.mu2 / (c.rp2 + rle2);
-  const gjj = gk + gt + g1 + g2;
-  // Row 3 is the grid-1 node, or vg1 = vs when the source is ideal.
-  const m31 = 0;
+  // Node equations in (Vk, VJ, Vg1), one matrix for both drives:
+  //   K:  (a1 + a2 + Gk)·Vk − Gk·VJ − b1·Vg1 = b2·vg2
+  //   J:  −Gk·Vk + (Gk + Gt + g1 + g2)·VJ − g1·Vg1 = g2·vg2
+  //   G1: −g1·VJ + (gs + g1 + gl)·Vg1 = gs·vs + gl·vg2      (or Vg1 = vs for an ideal source)
+  const m11 = a1 + a2 + gk;
+  const m12 = -gk;
+  const m13 = -b1;
+  const m21 = -gk;
+  const m22 = gk + gt + g1 + g2;
+  const m23 = -g1;
   const m32 = ideal ? 0 : -g1;
   const m33 = ideal ? 1 : gs + g1 + gl;
+  // Cofactors shared by every right-hand side (Cramer's rule, hand-unrolled; m31 = 0).
+  const c11 = m22 * m33 - m23 * m32;
+  const c12 = -(m21 * m33);
+  const c13 = m21 * m32;
+  const c21 = -(m12 * m33 - m13 * m32);
+  const c23 = -(m11 * m32);
+  const c31 = m12 * m23 - m13 * m22;
+  const c33 = m11 * m22 - m12 * m21;
+  const det = m11 * c11 + m12 * c12 + m13 * c13;
   // Drive 1: vs = 1, vg2 = 0.
-  let vk = cramer3(a1 + a2 + gk, -gk, -b1, -gk, gjj, -g1, m31, m32, m33, 0, 0, ideal ? 1 : gs, 0);
-  let vg1 = cramer3(a1 + a2 + gk, -gk, -b1, -gk, gjj, -g1, m31, m32, m33, 0, 0, ideal ? 1 : gs, 2);
+  const r3 = ideal ? 1 : gs;
+  let vk = (c31 * r3) / det;
+  let vg1 = (c33 * r3) / det;
   out.a11 = -rle1 * (b1 * vg1 - a1 * vk);
-  out.a12 = -rle2 * (-a2 * vk);
+  out.a12 = rle2 * a2 * vk;
   // Drive 2: vs = 0, vg2 = 1 (grid 2 also pulls J through RG2, or grid 1 through the leak).
-  vk = cramer3(a1 + a2 + gk, -gk, -b1, -gk, gjj, -g1, m31, m32, m33, b2, g2, ideal ? 0 : gl, 0);
-  vg1 = cramer3(a1 + a2 + gk, -gk, -b1, -gk, gjj, -g1, m31, m32, m33, b2, g2, ideal ? 0 : gl, 2);
+  const q3 = ideal ? 0 : gl;
+  vk = (c11 * b2 + c21 * g2 + c31 * q3) / det;
+  vg1 = (c13 * b2 + c23 * g2 + c33 * q3) / det;
   out.a21 = -rle1 * (b1 * vg1 - a1 * vk);
   out.a22 = -rle2 * (b2 - a2 * vk);
-  // Zout1: load 1 removed, 1 A into plate 1, sources zeroed.
+  // Zout1: load 1 removed, 1 A into plate 1, sources zeroed: only row K's a1, b1 and RHS change,
+  // and the cofactors of row K's entries do not involve row K.
   const q1 = c.rp1 + c.rl1;
   const a1o = (c.mu1 + 1) / q1;
   const b1o = c.mu1 / q1;
-  vk = cramer3(a1o + a2 + gk, -gk, -b1o, -gk, gjj, -g1, m31, m32, m33, c.rl1 / q1, 0, 0, 0);
-  vg1 = cramer3(a1o + a2 + gk, -gk, -b1o, -gk, gjj, -g1, m31, m32, m33, c.rl1 / q1, 0, 0, 2);
+  const det1 = (a1o + a2 + gk) * c11 + m12 * c12 - b1o * c13;
+  vk = (c11 * (c.rl1 / q1)) / det1;
+  vg1 = (c13 * (c.rl1 / q1)) / det1;
   out.zout1 = c.rl1 * (1 - (b1o * vg1 - a1o * vk + c.rl1 / q1));
   // Zout2: load 2 removed, 1 A into plate 2.
   const q2 = c.rp2 + c.rl2;
   const a2o = (c.mu2 + 1) / q2;
-  vk = cramer3(a1 + a2o + gk, -gk, -b1, -gk, gjj, -g1, m31, m32, m33, c.rl2 / q2, 0, 0, 0);
+  const det2 = (a1 + a2o + gk) * c11 + m12 * c12 + m13 * c13;
+  vk = (c11 * (c.rl2 / q2)) / det2;
   out.zout2 = c.rl2 * (1 - (c.rl2 / q2 - a2o * vk));
-  // Zin: grid 1 driven directly by 1 V, grid 2 at 0.
-  const vj = cramer3(a1 + a2 + gk, -gk, -b1, -gk, gjj, -g1, 0, 0, 1, 0, 0, 1, 1);
+  // Zin: grid 1 driven directly by 1 V, grid 2 at 0; a 2×2 system in (Vk, VJ).
+  const vj = (m11 * g1 - m21 * b1) / (m11 * m22 - m12 * m21);
   const iin = g1 * (1 - vj) + gl;
   out.zin = iin > 0 ? 1 / iin : Number.POSITIVE_INFINITY;
   return out;

@@ -1,5 +1,6 @@
 import type { ResolvedDesign } from '../design/designSchema.js';
 import { METRIC_IDS, METRICS, type MetricId, type MetricInfo } from './metrics.js';
+import { createBiasPredictor } from './biasPredictor.js';
 import {
   createStageContext,
   nominalStageInputs,
@@ -49,7 +50,9 @@ export interface StageKernel {
   evaluate(inputs: readonly Float64Array[], n: number, out: readonly Float64Array[]): void;
 }
 
-const M = Object.fromEntries(METRIC_IDS.map((id, i) => [id, i])) as Record<MetricId, number>;
+// Column of each metric, as plain constants so the hot loop does no keyed lookups.
+const col = (id: MetricId) => METRIC_IDS.indexOf(id);
+const VALID = col('valid');
 
 /**
  * Creates the stage kernel of a design. Per sample it solves the DC point (warm-started Newton
@@ -71,6 +74,7 @@ export function createStageKernel(design: ResolvedDesign, options?: { dcPerSampl
   const ctx = createStageContext(design);
   const nominal = nominalStageInputs(design);
   const nominalArray = Float64Array.from(INPUTS.map((id) => nominal[id]));
+  const predictor = createBiasPredictor(ctx, nominal);
   solveStageBias(ctx, nominal, false);
   const nb = { ...ctx.bp };
   const nominalValid = nb.status === 'ok';
@@ -79,6 +83,35 @@ export function createStageKernel(design: ResolvedDesign, options?: { dcPerSampl
 
   function evaluate(inputs: readonly Float64Array[], n: number, out: readonly Float64Array[]): void {
     const bp = ctx.bp;
+    const o_a11 = out[col('a11')];
+    const o_a12 = out[col('a12')];
+    const o_a21 = out[col('a21')];
+    const o_a22 = out[col('a22')];
+    const o_gainDiff = out[col('gainDiff')];
+    const o_balanceDb = out[col('balanceDb')];
+    const o_zout1 = out[col('zout1')];
+    const o_zout2 = out[col('zout2')];
+    const o_zin = out[col('zin')];
+    const o_gainDm = out[col('gainDm')];
+    const o_gainCm = out[col('gainCm')];
+    const o_cmrrDb = out[col('cmrrDb')];
+    const o_ia1 = out[col('ia1')];
+    const o_ia2 = out[col('ia2')];
+    const o_va1 = out[col('va1')];
+    const o_va2 = out[col('va2')];
+    const o_vk = out[col('vk')];
+    const o_vgk1 = out[col('vgk1')];
+    const o_vgk2 = out[col('vgk2')];
+    const o_pd1 = out[col('pd1')];
+    const o_pd2 = out[col('pd2')];
+    const o_vhk = out[col('vhk')];
+    const o_gm1 = out[col('gm1')];
+    const o_gm2 = out[col('gm2')];
+    const o_rp1 = out[col('rp1')];
+    const o_rp2 = out[col('rp2')];
+    const o_mu1 = out[col('mu1')];
+    const o_mu2 = out[col('mu2')];
+    const o_valid = out[col('valid')];
     for (let s = 0; s < n; s++) {
       x.rl1 = inputs[0][s];
       x.rl2 = inputs[1][s];
@@ -95,8 +128,7 @@ export function createStageKernel(design: ResolvedDesign, options?: { dcPerSampl
       x.perv2 = inputs[12][s];
       let gm1: number, gm2: number, rp1: number, rp2: number;
       if (dcPerSample) {
-        bp.ia1 = nb.ia1;
-        bp.ia2 = nb.ia2;
+        predictor.predictInto(x);
         if (solveStageBias(ctx, x, nominalValid) !== 'ok') {
           writeInvalid(out, s);
           continue;
@@ -119,37 +151,37 @@ export function createStageKernel(design: ResolvedDesign, options?: { dcPerSampl
       const mu1 = gm1 * rp1;
       const mu2 = gm2 * rp2;
       const g = stageGains(ctx, x, mu1, mu2, rp1, rp2);
-      out[M.a11][s] = g.a11;
-      out[M.a12][s] = g.a12;
-      out[M.a21][s] = g.a21;
-      out[M.a22][s] = g.a22;
-      out[M.gainDiff][s] = g.a11 - g.a12;
-      out[M.balanceDb][s] = 20 * Math.log10(Math.abs(g.a12) / Math.abs(g.a11));
-      out[M.zout1][s] = g.zout1;
-      out[M.zout2][s] = g.zout2;
-      out[M.zin][s] = g.zin;
+      o_a11[s] = g.a11;
+      o_a12[s] = g.a12;
+      o_a21[s] = g.a21;
+      o_a22[s] = g.a22;
+      o_gainDiff[s] = g.a11 - g.a12;
+      o_balanceDb[s] = 20 * Math.log10(Math.abs(g.a12) / Math.abs(g.a11));
+      o_zout1[s] = g.zout1;
+      o_zout2[s] = g.zout2;
+      o_zin[s] = g.zin;
       const dm = 0.5 * (g.a11 - g.a12 - g.a21 + g.a22);
       const cm = 0.5 * (g.a11 + g.a12 + g.a21 + g.a22);
-      out[M.gainDm][s] = dm;
-      out[M.gainCm][s] = cm;
-      out[M.cmrrDb][s] = 20 * Math.log10(Math.abs(dm) / Math.abs(cm));
-      out[M.ia1][s] = src.ia1;
-      out[M.ia2][s] = src.ia2;
-      out[M.va1][s] = src.va1;
-      out[M.va2][s] = src.va2;
-      out[M.vk][s] = src.vk;
-      out[M.vgk1][s] = src.vgk1;
-      out[M.vgk2][s] = src.vgk2;
-      out[M.pd1][s] = src.ia1 * (src.va1 - src.vk);
-      out[M.pd2][s] = src.ia2 * (src.va2 - src.vk);
-      out[M.vhk][s] = src.vk - heater;
-      out[M.gm1][s] = gm1;
-      out[M.gm2][s] = gm2;
-      out[M.rp1][s] = rp1;
-      out[M.rp2][s] = rp2;
-      out[M.mu1][s] = mu1;
-      out[M.mu2][s] = mu2;
-      out[M.valid][s] = 1;
+      o_gainDm[s] = dm;
+      o_gainCm[s] = cm;
+      o_cmrrDb[s] = 20 * Math.log10(Math.abs(dm) / Math.abs(cm));
+      o_ia1[s] = src.ia1;
+      o_ia2[s] = src.ia2;
+      o_va1[s] = src.va1;
+      o_va2[s] = src.va2;
+      o_vk[s] = src.vk;
+      o_vgk1[s] = src.vgk1;
+      o_vgk2[s] = src.vgk2;
+      o_pd1[s] = src.ia1 * (src.va1 - src.vk);
+      o_pd2[s] = src.ia2 * (src.va2 - src.vk);
+      o_vhk[s] = src.vk - heater;
+      o_gm1[s] = gm1;
+      o_gm2[s] = gm2;
+      o_rp1[s] = rp1;
+      o_rp2[s] = rp2;
+      o_mu1[s] = mu1;
+      o_mu2[s] = mu2;
+      o_valid[s] = 1;
     }
   }
 
@@ -163,5 +195,5 @@ export function createStageKernel(design: ResolvedDesign, options?: { dcPerSampl
 
 function writeInvalid(out: readonly Float64Array[], s: number): void {
   for (let m = 0; m < out.length; m++) out[m][s] = Number.NaN;
-  out[M.valid][s] = 0;
+  out[VALID][s] = 0;
 }

@@ -96,7 +96,8 @@ export function korenPointInto(
     return out;
   }
   const k = (scale * 2) / p.kg1;
-  const pw = Math.pow(e1, p.ex - 1);
+  // exp(·log) instead of Math.pow: the same value to a few ulp and markedly faster in V8.
+  const pw = Math.exp((p.ex - 1) * Math.log(e1));
   const dIdE = k * p.ex * pw;
   out.ia = k * pw * e1;
   out.gm = dIdE * ((vpk * sig) / s);

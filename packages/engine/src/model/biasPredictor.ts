@@ -1,0 +1,79 @@
+import { solveStageBias, type StageContext, type StageInputs } from './stageEvaluator.js';
+
+/** Inputs that move the DC point. */
+const DC_INPUTS = ['rl1', 'rl2', 'rk', 'rt', 'perv1', 'perv2', 'mu1', 'mu2'] as const;
+
+/** First-order start point for the per-sample bias solve. */
+export interface BiasPredictor {
+  /** Writes predicted Ia1, Ia2 (A) for inputs `x` into ctx.bp. */
+  predictInto(x: StageInputs): void;
+}
+
+/**
+ * Builds a linear predictor of the plate currents around the nominal point: dIa/d(log p) for each
+ * DC input, by central differences of full solves (done once per kernel). Warm-starting Newton from
+ * nominal alone is poor for long tails, where a few percent on Rt moves Vk by volts and the first
+ * residual is large; the predicted start is off only to second order, so Newton needs 2–3 steps.
+ *
+ * @example
+ * const pred = createBiasPredictor(ctx, nominal);
+ * pred.predictInto(x); solveBiasInto(ctx.bias, ctx.bp, true);
+ */
+export function createBiasPredictor(ctx: StageContext, nominal: StageInputs): BiasPredictor {
+  const status = solveStageBias(ctx, nominal, false);
+  const ia1 = ctx.bp.ia1;
+  const ia2 = ctx.bp.ia2;
+  const s1 = new Float64Array(DC_INPUTS.length);
+  const s2 = new Float64Array(DC_INPUTS.length);
+  const nom = new Float64Array(DC_INPUTS.map((k) => nominal[k]));
+  const h = 1e-4;
+  if (status === 'ok') {
+    DC_INPUTS.forEach((k, i) => {
+      const up = solveAt(ctx, { ...nominal, [k]: nominal[k] * (1 + h) });
+      const dn = solveAt(ctx, { ...nominal, [k]: nominal[k] * (1 - h) });
+      if (up && dn) {
+        s1[i] = (up[0] - dn[0]) / (2 * h);
+        s2[i] = (up[1] - dn[1]) / (2 * h);
+      }
+    });
+  }
+  return {
+    predictInto(x: StageInputs): void {
+      const d0 = x.rl1 / nom[0] - 1;
+      const d1 = x.rl2 / nom[1] - 1;
+      const d2 = x.rk / nom[2] - 1;
+      const d3 = x.rt / nom[3] - 1;
+      const d4 = x.perv1 / nom[4] - 1;
+      const d5 = x.perv2 / nom[5] - 1;
+      const d6 = x.mu1 / nom[6] - 1;
+      const d7 = x.mu2 / nom[7] - 1;
+      const p1 =
+        ia1 +
+        s1[0] * d0 +
+        s1[1] * d1 +
+        s1[2] * d2 +
+        s1[3] * d3 +
+        s1[4] * d4 +
+        s1[5] * d5 +
+        s1[6] * d6 +
+        s1[7] * d7;
+      const p2 =
+        ia2 +
+        s2[0] * d0 +
+        s2[1] * d1 +
+        s2[2] * d2 +
+        s2[3] * d3 +
+        s2[4] * d4 +
+        s2[5] * d5 +
+        s2[6] * d6 +
+        s2[7] * d7;
+      // A prediction outside the physical range falls back to the nominal currents.
+      ctx.bp.ia1 = p1 > 0 ? p1 : ia1;
+      ctx.bp.ia2 = p2 > 0 ? p2 : ia2;
+    },
+  };
+}
+
+function solveAt(ctx: StageContext, x: StageInputs): [number, number] | undefined {
+  return solveStageBias(ctx, x, false) === 'ok' ? [ctx.bp.ia1, ctx.bp.ia2] : undefined;
+}
