@@ -1,4 +1,5 @@
 // Process entry: read env, migrate, optionally seed the demo, serve on 127.0.0.1:PORT.
+import type { AddressInfo } from 'node:net';
 import { createDb, ensureDatabase, migrateToLatest, seedDemo } from '@sigmatail/db';
 import { createApp } from './app.js';
 import { createSmtpMailer } from './mail/mailer.js';
@@ -26,8 +27,9 @@ async function main(): Promise<void> {
   await migrateToLatest(db);
   if (process.env.SIGMATAIL_SEED_DEMO === '1') await seedDemo(db);
   // SIGMATAIL_MAIL_FAKE=1 runs the SMTP fake in this process instead of `mailFakeMain`.
-  if (process.env.SIGMATAIL_MAIL_FAKE === '1') await startMailFake({ db, port: config.smtpPort });
-  const mailer = createSmtpMailer({ port: config.smtpPort, from: config.mailFrom });
+  let smtpPort = config.smtpPort;
+  if (process.env.SIGMATAIL_MAIL_FAKE === '1') smtpPort = (await startMailFake({ db, port: smtpPort })).port;
+  const mailer = createSmtpMailer({ port: smtpPort, from: config.mailFrom });
   const app = createApp({ db, mailer, config });
 
   const server = app.listen(config.port, '127.0.0.1');
@@ -37,7 +39,10 @@ async function main(): Promise<void> {
     }
     fail(`cannot listen on port ${config.port}: ${err.message}`);
   });
-  server.on('listening', () => console.log(`sigmatail server on http://127.0.0.1:${config.port}`));
+  server.on('listening', () => {
+    const { port } = server.address() as AddressInfo;
+    console.log(`sigmatail server on http://127.0.0.1:${port}`);
+  });
 
   const stop = (): void => {
     server.close();
