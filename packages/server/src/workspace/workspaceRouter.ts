@@ -1,4 +1,5 @@
 import { DEFAULT_WORKSPACE_SETTINGS, type WorkspaceSettings } from '@sigmatail/db';
+import { MAX_SAMPLES, MIN_SAMPLES, SAMPLING_PLANS } from '@sigmatail/engine';
 import { Router } from 'express';
 import { z } from 'zod';
 import type { AppDeps } from '../appDeps.js';
@@ -6,15 +7,11 @@ import { recordAudit } from '../audit/recordAudit.js';
 import { requireAuth, requireRole } from '../auth/requireRole.js';
 import { nameField } from '../http/fields.js';
 
-// Same bounds as a run request (engine limits: 1..1e8 samples; random, lhs or sobol).
-const MAX_SAMPLES = 100_000_000;
-const SAMPLING_PLANS = ['random', 'lhs', 'sobol'] as const;
-
 const settingsPatch = z
   .object({
     defaultSamples: z
       .int('must be a whole number')
-      .min(1, 'must be at least 1')
+      .min(MIN_SAMPLES, `must be at least ${MIN_SAMPLES}`)
       .max(MAX_SAMPLES, `must be at most ${MAX_SAMPLES}`),
     defaultPlan: z.enum(SAMPLING_PLANS, { message: `must be one of ${SAMPLING_PLANS.join(', ')}` }),
     defaultYieldTarget: z
