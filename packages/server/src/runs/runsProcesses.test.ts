@@ -86,7 +86,6 @@ describe('runs across process crashes', () => {
         where run_id = ${id} and state = 'leased' and lease_owner like ${`%:${victimPid}:%`}`.execute(db);
         return rows[0]!.n > 0 ? true : undefined;
       });
-      mark("await victim.kill('SIGKIL");
       await victim.kill('SIGKILL');
       await server.proc.kill('SIGKILL');
       const mid = await db
@@ -103,7 +102,6 @@ describe('runs across process crashes', () => {
         const res = await after.get(`/api/runs/${id}`);
         return ['done', 'failed', 'cancelled'].includes(res.body.run.status) ? res.body.run : undefined;
       });
-      mark("expect(run.status).toBe('");
       expect(run.status).toBe('done');
       const retried = await db
         .selectFrom('run_chunks')
