@@ -46,9 +46,28 @@ export class Sfc32 {
     return (this.nextUint32() + 0.5) * 2.3283064365386963e-10;
   }
 
-  /** In place: fills out[0..n) with open-interval doubles (see nextOpen). */
+  /**
+   * In place: fills out[0..n) with open-interval doubles (see nextOpen); same values as n calls
+   * of nextOpen, with the state kept in locals for speed.
+   */
   fillOpen(out: Float64Array, n: number): void {
-    for (let i = 0; i < n; i++) out[i] = (this.nextUint32() + 0.5) * 2.3283064365386963e-10;
+    let a = this.a;
+    let b = this.b;
+    let c = this.c;
+    let d = this.d;
+    for (let i = 0; i < n; i++) {
+      const t = (((a + b) | 0) + d) | 0;
+      d = (d + 1) | 0;
+      a = b ^ (b >>> 9);
+      b = (c + (c << 3)) | 0;
+      c = (c << 21) | (c >>> 11);
+      c = (c + t) | 0;
+      out[i] = ((t >>> 0) + 0.5) * 2.3283064365386963e-10;
+    }
+    this.a = a;
+    this.b = b;
+    this.c = c;
+    this.d = d;
   }
 
   /** Integer uniform on 0..m-1 (m <= 2^32), by multiply-shift; bias below 2^-32·m, negligible here. */

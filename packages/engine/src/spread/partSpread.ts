@@ -119,11 +119,21 @@ export function applyPartSpreadInPlace(p: PartSpread, u: Float64Array, out: Floa
     case 'lognormal':
       for (let s = 0; s < n; s++) out[s] = nom * Math.exp(p.scale * normalQuantile(u[s]));
       return;
+    case 'uniform':
+      for (let s = 0; s < n; s++) out[s] = nom * (1 + p.scale * (2 * u[s] - 1));
+      return;
+    case 'binned':
+      for (let s = 0; s < n; s++) out[s] = nom * (1 + sg * binnedZ(p.pLow, p.pSpan, u[s]));
+      return;
+    case 'empirical': {
+      const v = p.values;
+      const last = v.length - 1;
+      for (let s = 0; s < n; s++) out[s] = v[Math.min(last, Math.floor(u[s] * v.length))];
+      return;
+    }
     case 'fixed':
       out.fill(nom, 0, n);
       return;
-    default:
-      for (let s = 0; s < n; s++) out[s] = partQuantile(p, u[s]);
   }
 }
 

@@ -19,8 +19,7 @@ export type MetricChunk = {
 };
 
 /**
- * Summarises column values col[0..n) on a fixed grid. Two passes (sum, then squared deviations)
- * for accuracy; `scratch` (length >= grid.bins) is zeroed and reused to avoid per-chunk growth.
+ * Summarises column values col[0..n) on a fixed grid in one pass; `scratch` (length >= grid.bins) is zeroed and reused to avoid per-chunk growth.
  *
  * @example summarizeColumn(Float64Array.of(1, 2, NaN), 3, grid, new Float64Array(grid.bins))
  */
@@ -30,39 +29,46 @@ export function summarizeColumn(
   grid: HistogramGrid,
   scratch: Float64Array,
 ): MetricChunk {
+  // One pass with sums shifted by the first finite value K: M2 = Σ(x−K)² − (Σ(x−K))²/n. With K a
+  // sample of the same metric, x − K is of the order of the spread, so the subtraction loses
+  // almost nothing (unlike raw sums of squares).
   let count = 0;
-  let sum = 0;
+  let shift = NaN;
+  let s1 = 0;
+  let s2 = 0;
   let min = Infinity;
   let max = -Infinity;
   let under = 0;
   let over = 0;
   scratch.fill(0, 0, grid.bins);
   const inv = 1 / grid.width;
+  const lo = grid.lo;
+  const bins = grid.bins;
   for (let s = 0; s < n; s++) {
     const x = col[s];
-    if (!Number.isFinite(x)) continue;
+    // x − x is 0 exactly for finite x, NaN for NaN and ±Infinity.
+    if (x - x !== 0) continue;
+    if (count === 0) shift = x;
     count++;
-    sum += x;
+    const dx = x - shift;
+    s1 += dx;
+    s2 += dx * dx;
     if (x < min) min = x;
     if (x > max) max = x;
-    const b = Math.floor((x - grid.lo) * inv);
+    const b = Math.floor((x - lo) * inv);
     if (b < 0) under++;
-    else if (b >= grid.bins) over++;
+    else if (b >= bins) over++;
     else scratch[b]++;
   }
   if (count === 0) {
     return { count, mean: null, m2: 0, min: null, max: null, under, over, binOffset: 0, bins: [] };
   }
-  const mean = sum / count;
-  let m2 = 0;
-  for (let s = 0; s < n; s++) {
-    const x = col[s];
-    if (Number.isFinite(x)) m2 += (x - mean) * (x - mean);
-  }
+  const mean = shift + s1 / count;
+  const m2 = Math.max(0, s2 - (s1 * s1) / count);
   let first = 0;
-  while (first < grid.bins && scratch[first] === 0) first++;
-  let last = grid.bins - 1;
+  while (first < bins && scratch[first] === 0) first++;
+  let last = bins - 1;
   while (last >= first && scratch[last] === 0) last--;
-  const bins = Array.from(scratch.subarray(first, last + 1));
-  return { count, mean, m2, min, max, under, over, binOffset: last >= first ? first : 0, bins };
+  const occupied = Array.from(scratch.subarray(first, last + 1));
+  return { count, mean, m2, min, max, under, over, binOffset: last >= first ? first : 0, bins: occupied };
 }

@@ -1,0 +1,120 @@
+// Engine figures: kernel and full-chunk throughput per core, the ml-matrix baseline, PRNG speed
+// and heap use against N. Fixed seeds and sizes; speed is reported here, never asserted in tests.
+// Run: npm run bench (repo root). Add --expose-gc (the script does) for settled heap figures.
+import {
+  chunkCount,
+  createRunAccumulator,
+  createStream,
+  designSetup,
+  DEFAULT_CHUNK_SIZE,
+  runSetupChunk,
+  fillUniforms,
+  type RunPlan,
+  type RunSetup,
+} from '@sigmatail/engine';
+import { createBaselineStage } from './src/baselineStage.js';
+import { benchDesign } from './src/benchDesign.js';
+import { timeBest } from './src/timeBest.js';
+
+const design = benchDesign();
+const N = DEFAULT_CHUNK_SIZE;
+const BASELINE_N = 2000;
+const quick = process.argv.includes('--quick');
+const mega = (n: number, ms: number) => n / ms / 1e3; // samples per ms → M samples/s
+
+function sampledInputs(setup: RunSetup, n: number): Float64Array[] {
+  const m = setup.model;
+  const u = m.dims.map(() => new Float64Array(n));
+  const inputs = m.kernel.inputs.map(() => new Float64Array(n));
+  fillUniforms('random', 'bench', 0, 0, n, u);
+  m.fillInputs(u, n, inputs, createStream('bench', 'pairing'), { samples: 0, draws: 0, failures: 0 });
+  return inputs;
+}
+
+const rows: Record<string, string | number>[] = [];
+for (const dcPerSample of [false, true]) {
+  const setup = designSetup(design, { dcPerSample });
+  const { kernel } = setup.model;
+  const inputs = sampledInputs(setup, N);
+  const out = kernel.metrics.map(() => new Float64Array(N));
+  const k = timeBest(() => kernel.evaluate(inputs, N, out), quick ? 3 : 7);
+  const plan: RunPlan = { samples: 8 * N, seed: 'bench', plan: 'random', chunkSize: N };
+  let chunk = 0;
+  const c = timeBest(() => void runSetupChunk(setup, plan, chunk++ % 8), quick ? 3 : 7);
+  // Baseline: nominal DC point from the kernel's own nominal outputs as the Newton start.
+  const nominal = kernel.metrics.map(() => new Float64Array(1));
+  kernel.evaluate(
+    kernel.nominalInputs().reduce<Float64Array[]>((cols, v) => [...cols, Float64Array.of(v)], []),
+    1,
+    nominal,
+  );
+  const at = (id: string) => nominal[kernel.metrics.indexOf(id)][0];
+  const vk = at('vk');
+  const nominalDc = [at('va1'), at('va2'), vk, vk + at('vgk1')];
+  const baseline = createBaselineStage(design, dcPerSample);
+  const bOut = new Float64Array(BASELINE_N);
+  const b = timeBest(() => baseline.evaluate(inputs, BASELINE_N, bOut, nominalDc), 3, 1);
+  let maxRel = 0;
+  const a11 = out[kernel.metrics.indexOf('a11')];
+  for (let s = 0; s < BASELINE_N; s++) maxRel = Math.max(maxRel, Math.abs(bOut[s] / a11[s] - 1));
+  const kernelRate = mega(N, k.best);
+  const baseRate = mega(BASELINE_N, b.best);
+  rows.push({
+    case: dcPerSample ? '(b) DC point per sample' : '(a) small signal only',
+    'kernel M/s (best)': +kernelRate.toFixed(3),
+    'kernel M/s (median)': +mega(N, k.median).toFixed(3),
+    'full chunk M/s (best)': +mega(N, c.best).toFixed(3),
+    'baseline M/s (best)': +baseRate.toFixed(4),
+    'kernel / baseline': Math.round(kernelRate / baseRate),
+    'chunk / baseline': Math.round(mega(N, c.best) / baseRate),
+    'a11 max rel diff vs baseline': maxRel.toExponential(1),
+    target: dcPerSample ? '≥ 1 M/s, ≥ 100×' : '≥ 2.5 M/s, ≥ 100×',
+  });
+}
+console.log(
+  '\nThroughput per core (one thread; chunk = 65 536 samples, seed "bench", design: bench 12AX7 pair)',
+);
+console.table(rows);
+
+const g = createStream('prng');
+const buf = new Float64Array(1 << 20);
+const p = timeBest(() => g.fillOpen(buf, buf.length), 7);
+console.log(`sfc32 fillOpen: ${mega(buf.length, p.best).toFixed(0)} M doubles/s (best of 7)`);
+
+// Heap against N: the run accumulates in chunk order, nothing per sample is kept.
+const gc = (globalThis as { gc?: () => void }).gc;
+const setup = designSetup(design, { dcPerSample: false });
+const memRows: Record<string, string | number>[] = [];
+for (const samples of quick ? [1e5, 1e6] : [1e5, 1e6, 1e7]) {
+  const plan: RunPlan = {
+    samples,
+    seed: 'memory',
+    plan: 'random',
+    chunkSize: N,
+    analyses: { influence: false, varianceIndices: false, worstCase: false },
+  };
+  gc?.();
+  const before = process.memoryUsage().heapUsed;
+  let peak = before;
+  const t0 = performance.now();
+  const acc = createRunAccumulator(setup, plan);
+  for (let k = 0; k < chunkCount(plan); k++) {
+    acc.add(runSetupChunk(setup, plan, k));
+    peak = Math.max(peak, process.memoryUsage().heapUsed);
+  }
+  const results = acc.finish();
+  const ms = performance.now() - t0;
+  gc?.();
+  memRows.push({
+    samples,
+    'heap before MB': +(before / 2 ** 20).toFixed(1),
+    'heap peak MB': +(peak / 2 ** 20).toFixed(1),
+    'heap after MB (results held)': +(process.memoryUsage().heapUsed / 2 ** 20).toFixed(1),
+    'run M/s': +mega(samples, ms).toFixed(3),
+    'joint yield': +results.joint.yield.toFixed(5),
+  });
+}
+console.log(
+  `\nHeap used against N (small-signal kernel, random plan${gc ? ', after gc' : ', gc not exposed'})`,
+);
+console.table(memRows);
