@@ -27,10 +27,14 @@ afterAll(async () => {
   await db?.destroy();
 });
 
-const common = { DATABASE_URL: url, SIGMATAIL_SECRET: 's'.repeat(40), SIGMATAIL_CHUNK_SIZE: String(CHUNK) };
-
 async function startServer(): Promise<{ proc: SpawnedWorker; baseUrl: string }> {
-  const proc = spawnWorker(serverMain, { ...common, DATABASE_URL: url, PORT: '0', SMTP_PORT: '9' });
+  const proc = spawnWorker(serverMain, {
+    DATABASE_URL: url,
+    PORT: '0',
+    SMTP_PORT: '9',
+    SIGMATAIL_SECRET: 's'.repeat(40),
+    SIGMATAIL_CHUNK_SIZE: String(CHUNK),
+  });
   procs.push(proc);
   const line = await proc.waitFor(/on http:\/\/127\.0\.0\.1:\d+/);
   return { proc, baseUrl: /http:\/\/127\.0\.0\.1:\d+/.exec(line)![0] };
