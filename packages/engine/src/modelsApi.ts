@@ -21,3 +21,5 @@ export * from './model/nominalResults.js';
 export * from './model/nodalGains.js';
 export * from './model/denseSolve.js';
 export * from './model/biasPredictor.js';
+export * from './design/designJsonSchema.js';
+export * from './design/exampleDesign.js';

@@ -25,7 +25,7 @@ const DIAGNOSIS: Record<Exclude<BiasStatus, 'ok'>, string> = {
   'cut-off':
     'a section is cut off (plate current below 1 µA): grid bias too negative for this B+ and these resistors',
   'grid-current':
-    'a grid sits positive to its cathode: grid current would flow, which the triode model does not cover; lower the grid-1 drive or raise Rk/Rt',
+    'a grid sits positive to its cathode: grid current would flow, which the triode model does not cover; lower the grid drive, raise Rk/Rt or raise B+',
   'no-convergence': 'the bias point solver did not converge; check that part values are physically sensible',
 };
 
