@@ -16,8 +16,8 @@ export type { AppDeps } from './appDeps.js';
 export function createApp(deps: AppDeps): express.Express {
   const app = express();
   app.disable('x-powered-by');
-  // Rate limiting keys on req.ip; only the loopback proxy (if any) is trusted.
-  app.set('trust proxy', 'loopback');
+  // req.ip (the rate-limit key) is the socket address: X-Forwarded-For is not trusted, since any
+  // local client could forge it. A deployment behind a proxy sets 'trust proxy' for its hop.
 
   const api = express.Router();
   api.use(express.json({ limit: '2mb' }));

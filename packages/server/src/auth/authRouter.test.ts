@@ -115,7 +115,7 @@ describe('sessions end', () => {
 });
 
 describe('sign-in rate limit', () => {
-  it('answers 429 JSON after too many attempts for one IP + email, other emails unaffected', async () => {
+  it('answers 429 JSON after too many failed attempts for one IP + email, other emails unaffected', async () => {
     const limited = await startTestApp({ loginLimit: 3 });
     try {
       const u = await buildUser(limited.deps.db);
@@ -126,6 +126,9 @@ describe('sign-in rate limit', () => {
         );
       }
       expect(statuses).toEqual([401, 401, 401, 429]);
+      // Successful sign-ins do not count towards the limit.
+      const busy = await buildUser(limited.deps.db);
+      for (let i = 0; i < 5; i++) await signIn(limited, busy);
       const blocked = await limited
         .client()
         .post('/api/auth/login', { email: u.email, password: u.password });

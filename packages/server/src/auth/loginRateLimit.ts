@@ -3,7 +3,7 @@ import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 import type { AppConfig } from '../config.js';
 
 /**
- * Limits sign-in attempts per IP + email (config.loginLimit per config.loginWindowMs), so one
+ * Limits failed sign-in attempts per IP + email (config.loginLimit per config.loginWindowMs), so one
  * address cannot guess passwords and one user cannot lock out everyone behind the same IP.
  * Memory store: one per app instance, which is enough for one server process.
  */
@@ -13,6 +13,8 @@ export function loginRateLimit(config: AppConfig): RequestHandler {
     limit: config.loginLimit,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
+    // Only failed attempts count: a team signing in all day from one office never hits it.
+    skipSuccessfulRequests: true,
     keyGenerator: (req) => {
       const email = typeof req.body?.email === 'string' ? req.body.email.trim().toLowerCase() : '';
       return `${ipKeyGenerator(req.ip ?? 'unknown')}|${email}`;

@@ -31,14 +31,19 @@ export async function listDesigns(
     query = query.where((eb) =>
       eb.or([
         eb('d.name', 'ilike', like),
-        // Notes live in the latest document; searching them helps find "the one with the 12AT7".
+        // Notes and tube type live in the latest document ("the one with the 12AT7").
         eb.exists(
           eb
             .selectFrom('design_revisions as r')
             .select(sql`1`.as('one'))
             .whereRef('r.design_id', '=', 'd.id')
             .whereRef('r.rev', '=', 'd.latest_rev')
-            .where(sql<string>`r.document::text`, 'ilike', like),
+            .where((w) =>
+              w.or([
+                w(sql<string>`coalesce(r.document->>'notes', '')`, 'ilike', like),
+                w(sql<string>`coalesce(r.document#>>'{tube,type}', '')`, 'ilike', like),
+              ]),
+            ),
         ),
       ]),
     );

@@ -93,6 +93,14 @@ describe('designs', () => {
     expect(await ids(`q=${tag}&archived=only`)).toEqual([b]);
     expect((await ids(`q=${tag}&archived=include`)).sort()).toEqual([a, b].sort());
     expect(await ids(`q=${tag.toLowerCase()}%20BRIGHT`)).toEqual([a]);
+    // Notes and tube type are searched too, JSON keys are not.
+    const noted = (
+      await engineer.post('/api/designs', { document: doc('Plain name', { notes: `${tag}-notes` }) })
+    ).body.design.id;
+    expect(await ids(`q=${tag}-notes`)).toEqual([noted]);
+    expect(await ids(`q=${encodeURIComponent('"tolerance"')}`)).toEqual([]);
+    const frozen = await engineer.post(`/api/designs/${b}/revisions`, { document: doc(`${tag} dark 2`) });
+    expect(frozen.status).toBe(409);
     const restored = await engineer.post(`/api/designs/${b}/archive`, { archived: false });
     expect(restored.body.design.archivedAt).toBeNull();
     const bad = await viewer.get('/api/designs?archived=maybe');

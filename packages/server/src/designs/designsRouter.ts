@@ -100,6 +100,8 @@ export function createDesignsRouter({ db }: AppDeps): Router {
 
   router.post('/designs/:id/revisions', requireRole('engineer'), async (req, res) => {
     const d = await loadDesign(req);
+    if (d.archived_at)
+      throw new HttpError(409, 'this design is archived; restore it before saving a revision');
     const body = saveBody.parse(req.body ?? {});
     const design = validateDesignDocument(body.document);
     const user = req.user!;
