@@ -5,7 +5,7 @@ import { correlation } from '../influence/rankInfluence.js';
 import { fillTubeInPlace, prepareTubeSpread, sectionsPaired } from './tubeSpread.js';
 
 const N = 100_000;
-function draw(spec: Parameters<typeof prepareTubeSpread>[0], seed = 'tube') {
+function draw(spec: Parameters<typeof prepareTubeSpread>[0], seed = 'tube', N = 100_000) {
   const t = prepareTubeSpread(spec);
   const u = [0, 1, 2, 3].map((j) => {
     const c = new Float64Array(N);

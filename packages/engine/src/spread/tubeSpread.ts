@@ -75,6 +75,12 @@ export function sectionsPaired(
  * order, so the result is deterministic) until it passes or MAX_PAIRING_ATTEMPTS is reached.
  * With `redraw` null the rule is not applied (used for variance-based indices, which need
  * independent inputs).
+ *
+ * Acceptance rate (reported per run as results.pairing.acceptanceRate): for 'ia' it is
+ * P(|e^X − 1| <= within) with X = ln(perv1/perv2) ~ N(0, 2(1−ρ)·sP²); for 'gm' the same with
+ * X scaled by 2/3, for 'mu' with sMu. Example: perveanceSd 10 %, ρ = 0.5, 'ia' within 15 %
+ * accepts about 88 % of envelopes (measured 0.884 on the bench design); ρ = 0, within 5 % about
+ * 29 %. Each rejected envelope costs four more uniforms and one more tube draw, nothing else.
  */
 export function fillTubeInPlace(
   t: TubeSpreadModel,
