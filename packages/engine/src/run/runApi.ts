@@ -58,3 +58,20 @@ export function sampleRows(
 ): { columns: string[]; rows: Iterable<number[]> } {
   return setupSampleRows(designSetup(design), plan, chunkIndex);
 }
+
+/**
+ * Checks that a parsed design can be run (spread parameters the schema cannot check alone, e.g. a
+ * binned part's inner band must be narrower than its tolerance). Returns the problems with the
+ * field path, empty when the design runs. Call before queueing a run to answer 400, not fail later.
+ *
+ * @example runDesignIssues(design) // [{ path: 'parts.rt.spread.inner', message: 'parts.rt.spread.inner must be 0 <= inner < tolerance (got 12)' }]
+ */
+export function runDesignIssues(design: ResolvedDesign): { path: string; message: string }[] {
+  try {
+    designSetup(design);
+    return [];
+  } catch (err) {
+    if (!(err instanceof RangeError)) throw err;
+    return [{ path: err.message.split(' ')[0], message: err.message }];
+  }
+}

@@ -6,7 +6,7 @@ import { mergeSetupChunks } from './mergeSetupChunks.js';
 import { chunkCount, type RunPlan } from './runPlan.js';
 import { createRunSetup } from './runSetup.js';
 import { runSetupChunk } from './runSetupChunk.js';
-import { mergeChunks, runChunk, sampleRows } from './runApi.js';
+import { mergeChunks, runChunk, runDesignIssues, sampleRows } from './runApi.js';
 import { setupSampleRows } from './setupSampleRows.js';
 import { additiveKernel } from './testKernels.js';
 import { createStream } from '../random/createStream.js';
@@ -78,5 +78,19 @@ describe('chunked runs are bit-identical for any worker count and arrival order'
     const m = columns.indexOf('balanceDb');
     const mean = all.reduce((s, r) => s + r[m], 0) / all.length;
     expect(chunks.find((c) => c.chunkIndex === 1)?.metrics.balanceDb.mean).toBeCloseTo(mean, 10);
+  });
+});
+
+describe('runDesignIssues', () => {
+  it('names the field of a spread the engine cannot run', () => {
+    expect(runDesignIssues(buildTestDesign())).toEqual([]);
+    const bad = buildTestDesign();
+    bad.parts.rt = { value: 10e3, tolerance: 5, spread: { kind: 'binned', inner: 8 } };
+    expect(runDesignIssues(bad)).toEqual([
+      {
+        path: 'parts.rt.spread.inner',
+        message: 'parts.rt.spread.inner must be 0 <= inner < tolerance (got 8)',
+      },
+    ]);
   });
 });
