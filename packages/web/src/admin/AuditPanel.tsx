@@ -1,14 +1,12 @@
 import { useQuery } from '@tanstack/react-query';
 import { adminQueries } from '../api/queries/adminQueries.js';
-import type { AuditEntry } from '../api/types.js';
+import type { AuditEvent } from '../api/types.js';
 import { ErrorNote, Loading } from '../components/QueryState.js';
 import { Panel } from '../components/ui.js';
 import { formatWhen } from '../format/formatWhen.js';
 
-function actorOf(e: AuditEntry): string {
-  if (e.actorEmail) return e.actorEmail;
-  if (typeof e.actor === 'string') return e.actor;
-  return e.actor?.email ?? '—';
+function actorOf(e: AuditEvent): string {
+  return e.user ? `${e.user.name} <${e.user.email}>` : 'system';
 }
 
 export function AuditPanel() {
@@ -31,9 +29,7 @@ export function AuditPanel() {
           <tbody>
             {audit.data.map((e) => (
               <tr key={e.id} className="border-b border-rule/60 align-top">
-                <td className="num py-1.5 pr-3 text-xs whitespace-nowrap">
-                  {formatWhen(e.at ?? e.createdAt)}
-                </td>
+                <td className="num py-1.5 pr-3 text-xs whitespace-nowrap">{formatWhen(e.at)}</td>
                 <td className="pr-3">{actorOf(e)}</td>
                 <td className="pr-3 font-medium">{e.action}</td>
                 <td className="num text-xs break-all text-dim">

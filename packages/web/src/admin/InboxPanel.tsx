@@ -26,7 +26,7 @@ export function InboxPanel() {
               >
                 <span className="block font-medium">{m.subject}</span>
                 <span className="block text-xs text-dim">
-                  to {m.to} · {formatWhen(m.receivedAt ?? m.date)}
+                  to {m.to} · {formatWhen(m.receivedAt)}
                 </span>
               </button>
             </li>

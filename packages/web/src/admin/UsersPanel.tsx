@@ -5,6 +5,7 @@ import { ROLES, type Role, type UserRow } from '../api/types.js';
 import { useMe } from '../auth/useMe.js';
 import { ErrorNote, Loading } from '../components/QueryState.js';
 import { Button, Panel } from '../components/ui.js';
+import { formatWhen } from '../format/formatWhen.js';
 
 export function UsersPanel() {
   const me = useMe();
@@ -38,7 +39,7 @@ export function UsersPanel() {
             </tr>
           </thead>
           <tbody>
-            {users.data.map((u: UserRow) => {
+            {users.data.users.map((u: UserRow) => {
               const self = u.id === me.id;
               return (
                 <tr key={u.id} className="border-b border-rule/60">
@@ -80,6 +81,20 @@ export function UsersPanel() {
             })}
           </tbody>
         </table>
+      )}
+      {users.data && users.data.invites.length > 0 && (
+        <>
+          <h3 className="mt-5 mb-1 text-xs font-semibold text-ink">Pending invites</h3>
+          <ul className="text-sm" aria-label="Pending invites">
+            {users.data.invites.map((i) => (
+              <li key={i.id} className="flex gap-3 border-b border-rule/60 py-1.5">
+                <span className="flex-1">{i.email}</span>
+                <span className="text-dim">{i.role}</span>
+                <span className="text-xs text-dim">expires {formatWhen(i.expiresAt)}</span>
+              </li>
+            ))}
+          </ul>
+        </>
       )}
     </Panel>
   );

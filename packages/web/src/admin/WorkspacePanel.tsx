@@ -1,67 +1,116 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { MAX_SAMPLES, SAMPLING_PLANS } from '@sigmatail/engine';
 import { useState } from 'react';
 import { api } from '../api/client.js';
 import { adminQueries } from '../api/queries/adminQueries.js';
 import { authQueries } from '../api/queries/authQueries.js';
+import type { SamplingPlan, Workspace } from '../api/types.js';
 import { ErrorNote, Loading } from '../components/QueryState.js';
 import { Button, inputClass, labelClass, Panel } from '../components/ui.js';
 
+/** Workspace name and the defaults new runs start from. */
 export function WorkspacePanel() {
-  const qc = useQueryClient();
   const ws = useQuery(adminQueries.workspace());
-  const [name, setName] = useState<string | null>(null);
+  return (
+    <Panel title="Workspace settings">
+      {ws.isPending && <Loading />}
+      {ws.isError && <ErrorNote error={ws.error} onRetry={() => ws.refetch()} />}
+      {ws.data && <WorkspaceForm key={JSON.stringify(ws.data)} workspace={ws.data} />}
+    </Panel>
+  );
+}
+
+function WorkspaceForm({ workspace }: { workspace: Workspace }) {
+  const qc = useQueryClient();
+  const [name, setName] = useState(workspace.name);
+  const [samples, setSamples] = useState(String(workspace.settings.defaultSamples));
+  const [plan, setPlan] = useState<SamplingPlan>(workspace.settings.defaultPlan);
+  const [target, setTarget] = useState(String(workspace.settings.defaultYieldTarget * 100));
   const save = useMutation({
-    mutationFn: (patch: { name: string }) => api.admin.updateWorkspace(patch),
+    mutationFn: () =>
+      api.admin.updateWorkspace({
+        name,
+        settings: {
+          defaultSamples: Number(samples),
+          defaultPlan: plan,
+          defaultYieldTarget: Number(target) / 100,
+        },
+      }),
     onSuccess: async () => {
-      setName(null);
       await qc.invalidateQueries({ queryKey: adminQueries.all });
       await qc.invalidateQueries({ queryKey: authQueries.all });
     },
   });
   return (
-    <Panel title="Workspace settings">
-      {ws.isPending && <Loading />}
-      {ws.isError && <ErrorNote error={ws.error} onRetry={() => ws.refetch()} />}
-      {ws.data && (
-        <form
-          className="max-w-lg space-y-3"
-          onSubmit={(e) => {
-            e.preventDefault();
-            save.mutate({ name: name ?? ws.data.name });
-          }}
+    <form
+      className="grid max-w-2xl gap-3 sm:grid-cols-2"
+      onSubmit={(e) => {
+        e.preventDefault();
+        save.mutate();
+      }}
+    >
+      <div className="sm:col-span-2">
+        <label htmlFor="ws-name" className={labelClass}>
+          Workspace name
+        </label>
+        <input
+          id="ws-name"
+          required
+          className={inputClass}
+          value={name}
+          onChange={(e) => setName(e.target.value)}
+        />
+      </div>
+      <div>
+        <label htmlFor="ws-samples" className={labelClass}>
+          Default samples per run (1 to {MAX_SAMPLES.toLocaleString('en-US')})
+        </label>
+        <input
+          id="ws-samples"
+          inputMode="numeric"
+          className={`${inputClass} num`}
+          value={samples}
+          onChange={(e) => setSamples(e.target.value)}
+        />
+      </div>
+      <div>
+        <label htmlFor="ws-plan" className={labelClass}>
+          Default sampling plan
+        </label>
+        <select
+          id="ws-plan"
+          className={inputClass}
+          value={plan}
+          onChange={(e) => setPlan(e.target.value as SamplingPlan)}
         >
-          <div>
-            <label htmlFor="ws-name" className={labelClass}>
-              Workspace name
-            </label>
-            <input
-              id="ws-name"
-              className={inputClass}
-              value={name ?? ws.data.name}
-              onChange={(e) => setName(e.target.value)}
-            />
-          </div>
-          {ws.data.settings && Object.keys(ws.data.settings).length > 0 && (
-            <dl className="grid grid-cols-2 gap-x-4 gap-y-1 text-sm">
-              {Object.entries(ws.data.settings).map(([k, v]) => (
-                <div key={k} className="contents">
-                  <dt className="text-dim">{k}</dt>
-                  <dd className="num">{typeof v === 'object' ? JSON.stringify(v) : String(v)}</dd>
-                </div>
-              ))}
-            </dl>
-          )}
-          {save.isError && <ErrorNote error={save.error} />}
-          {save.isSuccess && (
-            <p role="status" className="text-sm text-moss">
-              Saved.
-            </p>
-          )}
-          <Button tone="primary" type="submit" disabled={save.isPending || name === null}>
-            Save
-          </Button>
-        </form>
-      )}
-    </Panel>
+          {SAMPLING_PLANS.map((p) => (
+            <option key={p}>{p}</option>
+          ))}
+        </select>
+      </div>
+      <div>
+        <label htmlFor="ws-target" className={labelClass}>
+          Yield target (%)
+        </label>
+        <input
+          id="ws-target"
+          inputMode="decimal"
+          className={`${inputClass} num`}
+          value={target}
+          onChange={(e) => setTarget(e.target.value)}
+        />
+      </div>
+      <div className="sm:col-span-2">
+        {save.isError && <ErrorNote error={save.error} />}
+        {save.isSuccess && (
+          <p role="status" className="mb-2 text-sm text-moss">
+            Saved.
+          </p>
+        )}
+        <Button tone="primary" type="submit" disabled={save.isPending}>
+          Save settings
+        </Button>
+      </div>
+    </form>
   );
 }

@@ -3,22 +3,24 @@
  * server's message and, when the server names one, the offending field.
  */
 import type {
-  AuditEntry,
+  ArchivedFilter,
+  AuditEvent,
   DesignDetail,
   DesignSummary,
   InboxMessage,
   InboxSummary,
   InviteInfo,
   Me,
+  PendingInvite,
   Revision,
   RevisionSummary,
   Role,
-  RunDetail,
   RunLaunch,
-  RunResultsPayload,
-  RunSummary,
+  RunResultsBody,
+  RunView,
   UserRow,
   Workspace,
+  WorkspaceSettings,
 } from './types.js';
 
 export interface ApiIssue {
@@ -96,6 +98,48 @@ export async function requestText(path: string): Promise<string> {
   return res.text();
 }
 
+/** Parsed leading rows of a CSV download; the rest of the stream is abandoned. */
+export interface CsvSubset {
+  columns: string[];
+  rows: number[][];
+}
+
+/**
+ * Read the first `maxRows` data rows of a CSV endpoint and cancel the rest of the download, so a
+ * 10⁶-sample export costs the browser only the rows it plots.
+ */
+export async function requestCsvHead(path: string, maxRows: number): Promise<CsvSubset> {
+  let res: Response;
+  try {
+    res = await fetch(`/api${path}`, { credentials: 'same-origin' });
+  } catch {
+    throw new ApiError(0, 'Cannot reach the Sigmatail server. Check your connection and try again.');
+  }
+  if (!res.ok) throw await toApiError(res);
+  const lines: string[] = [];
+  let buffer = '';
+  if (res.body) {
+    const reader = res.body.pipeThrough(new TextDecoderStream()).getReader();
+    while (lines.length <= maxRows) {
+      const { done, value } = await reader.read();
+      if (done) break;
+      buffer += value;
+      const parts = buffer.split('\n');
+      buffer = parts.pop() ?? '';
+      lines.push(...parts);
+    }
+    await reader.cancel().catch(() => undefined);
+  } else {
+    lines.push(...(await res.text()).split('\n'));
+  }
+  if (buffer) lines.push(buffer);
+  const [header = '', ...data] = lines.filter((l) => l.trim() !== '');
+  return {
+    columns: header.split(',').map((c) => c.trim()),
+    rows: data.slice(0, maxRows).map((l) => l.split(',').map((v) => (v === '' ? Number.NaN : Number(v)))),
+  };
+}
+
 function qs(params: Record<string, string | number | boolean | undefined>): string {
   const sp = new URLSearchParams();
   for (const [k, v] of Object.entries(params)) if (v !== undefined && v !== '') sp.set(k, String(v));
@@ -112,42 +156,46 @@ export const api = {
     logout: () => request<void>('POST', '/auth/logout'),
     forgot: (email: string) => request<void>('POST', '/auth/forgot', { email }),
     reset: (token: string, password: string) => request<void>('POST', '/auth/reset', { token, password }),
-    invite: (token: string) => request<InviteInfo>('GET', `/invites/${enc(token)}`),
+    invite: (token: string) => request<{ invite: InviteInfo }>('GET', `/invites/${enc(token)}`),
     acceptInvite: (token: string, name: string, password: string) =>
       request<Me>('POST', '/auth/accept-invite', { token, name, password }),
   },
   admin: {
-    users: () => request<{ users: UserRow[] }>('GET', '/users'),
+    users: () => request<{ users: UserRow[]; invites: PendingInvite[] }>('GET', '/users'),
     setRole: (id: string, role: Role) => request<unknown>('PATCH', `/users/${enc(id)}`, { role }),
     removeUser: (id: string) => request<void>('DELETE', `/users/${enc(id)}`),
     invite: (email: string, role: Role) => request<unknown>('POST', '/invites', { email, role }),
     workspace: () => request<{ workspace: Workspace }>('GET', '/workspace'),
-    updateWorkspace: (patch: Partial<Workspace>) => request<unknown>('PATCH', '/workspace', patch),
+    updateWorkspace: (patch: { name?: string; settings?: Partial<WorkspaceSettings> }) =>
+      request<unknown>('PATCH', '/workspace', patch),
     inbox: () => request<{ messages: InboxSummary[] }>('GET', '/dev/inbox'),
     inboxMessage: (id: string) => request<{ message: InboxMessage }>('GET', `/dev/inbox/${enc(id)}`),
-    audit: () => request<{ entries: AuditEntry[] }>('GET', '/audit'),
+    audit: () => request<{ events: AuditEvent[] }>('GET', '/audit'),
   },
   designs: {
-    list: (q = '', archived = false) =>
-      request<{ designs: DesignSummary[] }>('GET', `/designs${qs({ q, archived: archived || undefined })}`),
+    list: (q = '', archived: ArchivedFilter = 'exclude') =>
+      request<{ designs: DesignSummary[] }>('GET', `/designs${qs({ q, archived })}`),
     get: (id: string) => request<{ design: DesignDetail }>('GET', `/designs/${enc(id)}`),
-    create: (document: unknown) => request<{ design: DesignDetail }>('POST', '/designs', { document }),
+    create: (document: unknown, message?: string) =>
+      request<{ design: DesignDetail }>('POST', '/designs', { document, message }),
     revisions: (id: string) =>
       request<{ revisions: RevisionSummary[] }>('GET', `/designs/${enc(id)}/revisions`),
     revision: (id: string, rev: number) =>
       request<{ revision: Revision }>('GET', `/designs/${enc(id)}/revisions/${rev}`),
     saveRevision: (id: string, document: unknown, message?: string) =>
       request<{ revision: Revision }>('POST', `/designs/${enc(id)}/revisions`, { document, message }),
-    archive: (id: string) => request<unknown>('POST', `/designs/${enc(id)}/archive`),
+    archive: (id: string, archived = true) =>
+      request<{ design: DesignDetail }>('POST', `/designs/${enc(id)}/archive`, { archived }),
   },
   runs: {
     list: (filter: { designId?: string; status?: string } = {}) =>
-      request<{ runs: RunSummary[] }>('GET', `/runs${qs(filter)}`),
-    get: (id: string) => request<{ run: RunDetail }>('GET', `/runs/${enc(id)}`),
+      request<{ runs: RunView[] }>('GET', `/runs${qs(filter)}`),
+    get: (id: string) => request<{ run: RunView }>('GET', `/runs/${enc(id)}`),
     launch: (launch: RunLaunch) => request<{ id: string }>('POST', '/runs', launch),
-    cancel: (id: string) => request<unknown>('POST', `/runs/${enc(id)}/cancel`),
-    results: (id: string) => request<RunResultsPayload>('GET', `/runs/${enc(id)}/results`),
+    cancel: (id: string) => request<{ run: RunView }>('POST', `/runs/${enc(id)}/cancel`),
+    results: (id: string) => request<RunResultsBody>('GET', `/runs/${enc(id)}/results`),
     exportCsv: (id: string) => requestText(`/runs/${enc(id)}/export.csv`),
+    sampleHead: (id: string, maxRows: number) => requestCsvHead(`/runs/${enc(id)}/export.csv`, maxRows),
     csvUrl: (id: string) => `/api/runs/${enc(id)}/export.csv`,
     jsonUrl: (id: string) => `/api/runs/${enc(id)}/export.json`,
   },

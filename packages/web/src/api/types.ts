@@ -1,4 +1,5 @@
-/** Shapes of the API's JSON responses, as the web app reads them. */
+/** Shapes of the API's JSON responses, as the web app reads them (see packages/server/src). */
+import type { RunResults } from '@sigmatail/engine';
 
 export const ROLES = ['admin', 'engineer', 'production', 'viewer'] as const;
 export type Role = (typeof ROLES)[number];
@@ -17,8 +18,9 @@ export interface Me {
 export interface InviteInfo {
   email: string;
   role: Role;
-  invitedBy?: string | { name: string; email?: string };
-  workspace?: string | { name: string };
+  invitedBy: { name: string };
+  workspace: { name: string };
+  expiresAt: string;
 }
 
 export interface UserRow {
@@ -26,63 +28,76 @@ export interface UserRow {
   email: string;
   name: string;
   role: Role;
-  createdAt?: string;
+  joinedAt?: string;
+}
+export interface PendingInvite {
+  id: string;
+  email: string;
+  role: Role;
+  expiresAt: string;
+  createdAt: string;
 }
 
+export interface WorkspaceSettings {
+  defaultSamples: number;
+  defaultPlan: SamplingPlan;
+  defaultYieldTarget: number;
+}
 export interface Workspace {
   id: string;
   name: string;
-  settings?: Record<string, unknown>;
+  settings: WorkspaceSettings;
 }
 
 export interface InboxSummary {
   id: string;
+  from: string;
   to: string;
   subject: string;
-  receivedAt?: string;
-  date?: string;
+  receivedAt: string;
 }
 export interface InboxMessage extends InboxSummary {
-  from?: string;
-  text?: string;
-  html?: string;
+  text: string;
+  html: string | null;
 }
 
-export interface AuditEntry {
+export interface AuditEvent {
   id: string;
-  at?: string;
-  createdAt?: string;
   action: string;
-  actorEmail?: string;
-  actor?: string | { email: string; name?: string };
-  target?: string;
-  detail?: unknown;
+  target: string | null;
+  detail: unknown;
+  at: string;
+  user: { id: string; name: string; email: string } | null;
 }
 
+interface Author {
+  id: string;
+  name: string;
+}
 export interface DesignSummary {
   id: string;
   name: string;
-  archived?: boolean;
-  revision?: number;
-  latestRevision?: number;
-  updatedAt?: string;
-  topology?: string;
-}
-export interface DesignDetail extends DesignSummary {
-  document: unknown;
+  latestRev: number;
+  createdAt: string;
+  updatedAt: string;
+  archivedAt: string | null;
+  createdBy?: Author;
 }
 export interface RevisionSummary {
-  revision: number;
-  message?: string | null;
-  createdAt?: string;
-  author?: string | { name: string; email?: string };
-  authorName?: string;
+  rev: number;
+  message: string | null;
+  createdAt: string;
+  createdBy: Author;
 }
 export interface Revision extends RevisionSummary {
   document: unknown;
 }
+export interface DesignDetail extends DesignSummary {
+  latestRevision: Revision;
+}
+export type ArchivedFilter = 'exclude' | 'include' | 'only';
 
-export type RunStatus = 'queued' | 'running' | 'done' | 'completed' | 'failed' | 'cancelled' | 'canceled';
+export type RunStatus = 'queued' | 'running' | 'merging' | 'done' | 'failed' | 'cancelled';
 export type SamplingPlan = 'random' | 'lhs' | 'sobol';
 
 export interface RunLaunch {
@@ -94,23 +109,28 @@ export interface RunLaunch {
   analyses?: { influence?: boolean; varianceIndices?: boolean; worstCase?: boolean };
 }
 
-export interface RunSummary {
+export interface RunView {
   id: string;
   designId: string;
-  designName?: string;
-  revision?: number;
+  designName: string;
+  revision: number;
   status: RunStatus;
   samples: number;
   seed: string;
   plan: SamplingPlan;
-  createdAt?: string;
-  finishedAt?: string | null;
-  progress?: number;
-  chunksDone?: number;
-  chunksTotal?: number;
-  error?: string | null;
+  chunkSize: number;
+  analyses: Record<string, boolean>;
+  engineVersion: string;
+  progress: { done: number; total: number; fraction: number };
+  error: string | null;
+  createdBy: Author;
+  createdAt: string;
+  startedAt: string | null;
+  finishedAt: string | null;
+  summary: { validCount: number | null; jointYield: number | null } | null;
 }
-export type RunDetail = RunSummary;
 
-/** Results as the engine's `mergeChunks` produces them; read defensively. */
-export type RunResultsPayload = { results: unknown } | Record<string, unknown>;
+export interface RunResultsBody {
+  run: RunView;
+  results: RunResults;
+}

@@ -1,42 +1,52 @@
 import { scaleBand, scaleLinear } from 'd3';
 import type { Ref } from 'react';
-import { formatSig } from '../format/formatSi.js';
+import { formatSi } from '../format/formatSi.js';
 import { Axis } from './Axis.js';
 import { DIM, FONT, MONO, SERIES_COLOURS } from './chartTheme.js';
 
 export interface TornadoBar {
   label: string;
-  /** Signed effect (e.g. a correlation or a standardised sensitivity); bars grow left or right of 0. */
-  value: number;
+  /** Metric value with this input at its low / high extreme, the rest nominal. */
+  low: number;
+  high: number;
 }
 
-/** Influence tornado: parts sorted by the size of their effect on one metric. */
+/**
+ * Influence tornado: one bar per input spanning the metric's values at the input's low and high
+ * extremes, centred on the nominal value, widest first.
+ */
 export function Tornado({
   bars,
+  centre,
+  unit,
   svgRef,
   label,
   width = 460,
 }: {
   bars: TornadoBar[];
+  centre: number;
+  unit: string;
   svgRef?: Ref<SVGSVGElement>;
   label: string;
   width?: number;
 }) {
-  const sorted = [...bars]
-    .filter((b) => Number.isFinite(b.value))
-    .sort((a, b) => Math.abs(b.value) - Math.abs(a.value));
+  const sorted = bars
+    .filter((b) => Number.isFinite(b.low) && Number.isFinite(b.high))
+    .sort((a, b) => Math.abs(b.high - b.low) - Math.abs(a.high - a.low))
+    .slice(0, 12);
+  if (sorted.length === 0) return <p className="text-sm text-dim">No input moves this metric.</p>;
   const rowH = 20;
-  const left = 70;
-  const height = sorted.length * rowH + 40;
-  const m = Math.max(1e-12, ...sorted.map((b) => Math.abs(b.value)));
+  const left = 64;
+  const height = sorted.length * rowH + 44;
+  const all = sorted.flatMap((b) => [b.low, b.high]).concat(centre);
   const x = scaleLinear()
-    .domain([-m, m])
+    .domain([Math.min(...all), Math.max(...all)])
     .range([left, width - 16])
     .nice();
   const y = scaleBand<string>()
     .domain(sorted.map((b) => b.label))
-    .range([8, height - 32])
-    .padding(0.2);
+    .range([8, height - 36])
+    .padding(0.22);
   return (
     <svg
       ref={svgRef}
@@ -47,13 +57,22 @@ export function Tornado({
       fontFamily={FONT}
     >
       {sorted.map((b) => {
-        const x0 = x(Math.min(0, b.value));
-        const x1 = x(Math.max(0, b.value));
+        const yy = y(b.label) ?? 0;
+        const seg = (v: number, colour: string, key: string) => {
+          const a = x(Math.min(centre, v));
+          const c = x(Math.max(centre, v));
+          return (
+            <rect key={key} x={a} width={Math.max(1, c - a)} y={yy} height={y.bandwidth()} fill={colour} />
+          );
+        };
         return (
           <g key={b.label}>
+            <title>
+              {b.label}: low → {formatSi(b.low, unit)}, high → {formatSi(b.high, unit)}
+            </title>
             <text
               x={left - 6}
-              y={(y(b.label) ?? 0) + y.bandwidth() / 2}
+              y={yy + y.bandwidth() / 2}
               dy="0.32em"
               textAnchor="end"
               fontSize={11}
@@ -62,22 +81,19 @@ export function Tornado({
             >
               {b.label}
             </text>
-            <rect
-              x={x0}
-              width={Math.max(1, x1 - x0)}
-              y={y(b.label)}
-              height={y.bandwidth()}
-              fill={b.value >= 0 ? SERIES_COLOURS[0] : SERIES_COLOURS[1]}
-            >
-              <title>
-                {b.label}: {formatSig(b.value)}
-              </title>
-            </rect>
+            {seg(b.low, SERIES_COLOURS[1], 'lo')}
+            {seg(b.high, SERIES_COLOURS[0], 'hi')}
           </g>
         );
       })}
-      <line x1={x(0)} x2={x(0)} y1={4} y2={height - 32} stroke={DIM} />
-      <Axis scale={x} orient="bottom" at={height - 32} ticks={5} />
+      <line x1={x(centre)} x2={x(centre)} y1={4} y2={height - 36} stroke={DIM} />
+      <Axis scale={x} orient="bottom" at={height - 36} ticks={5} unit={unit} />
+      <g fontSize={10} fill={DIM} transform={`translate(${left},${height - 8})`}>
+        <rect width={9} height={9} y={-8} fill={SERIES_COLOURS[1]} />
+        <text x={13}>input at low extreme</text>
+        <rect x={130} width={9} height={9} y={-8} fill={SERIES_COLOURS[0]} />
+        <text x={143}>at high extreme</text>
+      </g>
     </svg>
   );
 }

@@ -1,15 +1,9 @@
 import { useQuery } from '@tanstack/react-query';
 import { Link } from 'react-router';
 import { designQueries } from '../api/queries/designQueries.js';
-import type { RevisionSummary } from '../api/types.js';
 import { ErrorNote, Loading } from '../components/QueryState.js';
 import { Panel } from '../components/ui.js';
 import { formatWhen } from '../format/formatWhen.js';
-
-function authorOf(r: RevisionSummary): string {
-  if (r.authorName) return r.authorName;
-  return typeof r.author === 'string' ? r.author : (r.author?.name ?? '');
-}
 
 /** Saved revisions of a design, newest first; each opens read-only. */
 export function RevisionList({ designId }: { designId: string }) {
@@ -21,20 +15,20 @@ export function RevisionList({ designId }: { designId: string }) {
       {revs.data && (
         <ol className="max-h-72 divide-y divide-rule/70 overflow-y-auto text-sm" aria-label="Revisions">
           {[...revs.data]
-            .sort((a, b) => b.revision - a.revision)
+            .sort((a, b) => b.rev - a.rev)
             .map((r) => (
-              <li key={r.revision} className="flex items-baseline gap-3 py-1.5">
+              <li key={r.rev} className="flex items-baseline gap-3 py-1.5">
                 <Link
-                  to={`/designs/${designId}/revisions/${r.revision}`}
+                  to={`/designs/${designId}/revisions/${r.rev}`}
                   className="num font-medium text-glow underline"
                 >
-                  rev {r.revision}
+                  rev {r.rev}
                 </Link>
                 <span className="flex-1 truncate">
                   {r.message || <span className="text-dim">no note</span>}
                 </span>
                 <span className="text-xs text-dim">
-                  {authorOf(r)} {formatWhen(r.createdAt)}
+                  {r.createdBy.name} · {formatWhen(r.createdAt)}
                 </span>
               </li>
             ))}

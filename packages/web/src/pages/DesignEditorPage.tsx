@@ -45,7 +45,7 @@ export function DesignEditorPage() {
   if (detail.isPending) return <Loading label="Loading design…" />;
   if (detail.isError) return <ErrorNote error={detail.error} onRetry={() => detail.refetch()} />;
   const d = detail.data;
-  const rev = d.latestRevision ?? d.revision;
+  const rev = d.latestRev;
   return (
     <div className="space-y-4">
       <PageTitle sub={<span className="num">{rev !== undefined ? `revision ${rev}` : ''}</span>}>
@@ -54,7 +54,7 @@ export function DesignEditorPage() {
       <SafetyCaution compact />
       <DesignForm
         key={`${d.id}-${rev}`}
-        initial={d.document as Design}
+        initial={d.latestRevision.document as Design}
         readOnly={!mayEdit}
         banner={
           !mayEdit && (

@@ -14,7 +14,7 @@ export function DesignsPage() {
   const [q, setQ] = useState('');
   const [archived, setArchived] = useState(false);
   const search = useDebounced(q.trim(), 250);
-  const designs = useQuery(designQueries.list(search, archived));
+  const designs = useQuery(designQueries.list(search, archived ? 'include' : 'exclude'));
   const mayEdit = can(me.role, 'editDesign');
   return (
     <div>
@@ -69,12 +69,10 @@ export function DesignsPage() {
               >
                 <span className="block font-medium text-ink">{d.name}</span>
                 <span className="mt-2 flex flex-wrap gap-x-3 text-xs text-dim">
-                  {d.topology && <span>{d.topology}</span>}
-                  {(d.latestRevision ?? d.revision) !== undefined && (
-                    <span className="num">rev {d.latestRevision ?? d.revision}</span>
-                  )}
-                  {d.updatedAt && <span>{formatWhen(d.updatedAt)}</span>}
-                  {d.archived && <span className="text-brass">archived</span>}
+                  <span className="num">rev {d.latestRev}</span>
+                  <span>{formatWhen(d.updatedAt)}</span>
+                  {d.createdBy && <span>by {d.createdBy.name}</span>}
+                  {d.archivedAt && <span className="text-brass">archived</span>}
                 </span>
               </Link>
             </li>

@@ -3,15 +3,10 @@ import { useState } from 'react';
 import { useNavigate, useParams } from 'react-router';
 import { api } from '../api/client.js';
 import { authQueries } from '../api/queries/authQueries.js';
-import type { InviteInfo } from '../api/types.js';
 import { AuthFrame } from '../auth/AuthFrame.js';
 import { PASSWORD_MIN } from '../auth/passwordRules.js';
 import { ErrorNote, Loading } from '../components/QueryState.js';
 import { Button, inputClass, labelClass } from '../components/ui.js';
-
-function nameOf(v: InviteInfo['invitedBy'] | InviteInfo['workspace']): string | undefined {
-  return typeof v === 'string' ? v : v?.name;
-}
 
 export function InviteAcceptPage() {
   const { token = '' } = useParams();
@@ -41,9 +36,8 @@ export function InviteAcceptPage() {
           }}
         >
           <p className="text-sm">
-            {nameOf(invite.data.invitedBy) ?? 'An administrator'} invited <strong>{invite.data.email}</strong>
-            {nameOf(invite.data.workspace) ? ` to ${nameOf(invite.data.workspace)}` : ''} as{' '}
-            <strong>{invite.data.role}</strong>.
+            {invite.data.invitedBy.name} invited <strong>{invite.data.email}</strong> to{' '}
+            <strong>{invite.data.workspace.name}</strong> as <strong>{invite.data.role}</strong>.
           </p>
           <div>
             <label htmlFor="invite-name" className={labelClass}>

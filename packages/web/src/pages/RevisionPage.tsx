@@ -18,7 +18,7 @@ export function RevisionPage() {
       <PageTitle
         sub={
           <>
-            Revision <span className="num">{revision.data.revision}</span>
+            Revision <span className="num">{revision.data.rev}</span>
             {revision.data.message ? ` — ${revision.data.message}` : ''} ·{' '}
             <Link to={`/designs/${id}`} className="text-glow underline">
               back to the latest

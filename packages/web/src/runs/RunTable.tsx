@@ -1,5 +1,5 @@
 import { Link } from 'react-router';
-import type { RunSummary } from '../api/types.js';
+import type { RunView } from '../api/types.js';
 import { formatCount } from '../format/formatSi.js';
 import { formatWhen } from '../format/formatWhen.js';
 import { RunStatusBadge } from './RunStatusBadge.js';
@@ -11,7 +11,7 @@ export function RunTable({
   onPick,
   showDesign = true,
 }: {
-  runs: RunSummary[];
+  runs: RunView[];
   picked?: string[];
   onPick?: (id: string, on: boolean) => void;
   showDesign?: boolean;

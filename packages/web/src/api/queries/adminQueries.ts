@@ -6,7 +6,7 @@ export const adminQueries = {
   users: () =>
     queryOptions({
       queryKey: [...adminQueries.all, 'users'] as const,
-      queryFn: async () => (await api.admin.users()).users,
+      queryFn: () => api.admin.users(),
     }),
   workspace: () =>
     queryOptions({
@@ -26,6 +26,6 @@ export const adminQueries = {
   audit: () =>
     queryOptions({
       queryKey: [...adminQueries.all, 'audit'] as const,
-      queryFn: async () => (await api.admin.audit()).entries,
+      queryFn: async () => (await api.admin.audit()).events,
     }),
 };

@@ -20,6 +20,6 @@ export const authQueries = {
   invite: (token: string) =>
     queryOptions({
       queryKey: [...authQueries.all, 'invite', token] as const,
-      queryFn: () => api.auth.invite(token),
+      queryFn: async () => (await api.auth.invite(token)).invite,
     }),
 };

@@ -1,9 +1,10 @@
 import { queryOptions } from '@tanstack/react-query';
 import { api } from '../client.js';
+import type { ArchivedFilter } from '../types.js';
 
 export const designQueries = {
   all: ['designs'] as const,
-  list: (q: string, archived = false) =>
+  list: (q: string, archived: ArchivedFilter = 'exclude') =>
     queryOptions({
       queryKey: [...designQueries.all, 'list', { q, archived }] as const,
       queryFn: async () => (await api.designs.list(q, archived)).designs,

@@ -22,4 +22,11 @@ export const runQueries = {
       queryFn: () => api.runs.results(id),
       staleTime: Infinity, // results of a finished run are immutable
     }),
+  /** The first rows of the regenerated sample export, for scatter plots. */
+  samples: (id: string, maxRows: number) =>
+    queryOptions({
+      queryKey: [...runQueries.all, 'detail', id, 'samples', maxRows] as const,
+      queryFn: () => api.runs.sampleHead(id, maxRows),
+      staleTime: Infinity,
+    }),
 };
