@@ -54,6 +54,15 @@ export async function runWorkerProcess(o: WorkerProcessOptions): Promise<void> {
   const owner = `${os.hostname()}:${process.pid}:${crypto.randomBytes(3).toString('hex')}`;
   const log = (line: string) => process.stdout.write(`[worker ${owner}] ${line}\n`);
 
+  // Chunks are batch work: below the API server in CPU priority when both share a machine, so
+  // page loads stay quick while a long run computes. Set before the pool starts: on Linux each
+  // thread has its own nice value and new threads inherit their creator's.
+  const nice = Number(o.env.SIGMATAIL_WORKER_NICE ?? 10);
+  try {
+    if (Number.isInteger(nice) && nice >= 0 && nice <= 19) os.setPriority(nice);
+  } catch {
+    // not permitted here (e.g. lowered limits): run at normal priority
+  }
   const db = createDb(url, { max: 4 });
   const mailer = createSmtpMailer({
     port: positiveInt(o.env, 'SMTP_PORT', 2525),
@@ -77,7 +86,7 @@ export async function runWorkerProcess(o: WorkerProcessOptions): Promise<void> {
     log,
   );
   worker.start();
-  log(`started: ${threads} thread(s), lease ${leaseMs} ms`);
+  log(`started: ${threads} thread(s), lease ${leaseMs} ms, nice ${os.getPriority()}`);
 
   let stopping = false;
   const stop = async (signal: string) => {

@@ -1,0 +1,168 @@
+// End to end: POST /api/runs → results stored, for 1e6 samples with the DC operating point per
+// sample, through the real server and worker processes; then the speed-up of two worker threads
+// over one. Run: npx tsx --conditions=@sigmatail/source bench/runEndToEnd.ts [samples] [repeats]
+import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
+import path from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+
+const REPO = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+
+export type Proc = {
+  child: ChildProcess;
+  waitFor(re: RegExp, ms?: number): Promise<string>;
+  stop(): Promise<void>;
+};
+
+/** Starts a TypeScript entry of the repo as its own process (node + tsx loader). */
+export function startProcess(entry: string, env: Record<string, string>): Proc {
+  const child = spawn(
+    process.execPath,
+    ['--conditions=@sigmatail/source', '--import', 'tsx', path.join(REPO, entry)],
+    {
+      cwd: REPO,
+      env: { ...process.env, ...env },
+      stdio: ['ignore', 'pipe', 'pipe'],
+    },
+  );
+  let out = '';
+  const listeners: (() => void)[] = [];
+  const onData = (b: Buffer) => {
+    out += b.toString();
+    listeners.forEach((l) => l());
+  };
+  child.stdout!.on('data', onData);
+  child.stderr!.on('data', onData);
+  const exited = new Promise<void>((r) => child.once('exit', () => r()));
+  return {
+    child,
+    waitFor: (re, ms = 60_000) =>
+      new Promise((resolve, reject) => {
+        const t = setTimeout(() => reject(new Error(`${entry}: no ${re} within ${ms} ms:\n${out}`)), ms);
+        const check = () => {
+          const m = re.exec(out);
+          if (m) {
+            clearTimeout(t);
+            resolve(m[0]);
+          }
+        };
+        listeners.push(check);
+        check();
+      }),
+    stop: async () => {
+      if (child.exitCode === null && child.signalCode === null) child.kill('SIGTERM');
+      await exited;
+    },
+  };
+}
+
+/** A fresh database with the demo workshop, the API server on it, and a signed-in engineer. */
+export async function startStack(name: string) {
+  const url = execFileSync('bash', [path.join(REPO, 'scripts/pg.sh'), 'reset-db', name], {
+    encoding: 'utf8',
+  }).trim();
+  const server = startProcess('packages/server/src/main.ts', {
+    DATABASE_URL: url,
+    PORT: '0',
+    SIGMATAIL_SEED_DEMO: '1',
+    SIGMATAIL_MAIL_FAKE: '1',
+    SMTP_PORT: '0',
+    SIGMATAIL_SECRET: 'bench-secret-'.padEnd(40, 'x'),
+  });
+  const base = (await server.waitFor(/http:\/\/127\.0\.0\.1:\d+/)).replace(/\/$/, '');
+  const login = await fetch(`${base}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({ email: 'engineer@fenwick.example', password: 'tailpair-demo' }),
+  });
+  if (login.status !== 200) throw new Error(`sign-in failed: ${login.status}`);
+  const cookie = login.headers.getSetCookie()[0]!.split(';')[0]!;
+  const api = async (method: string, p: string, body?: unknown) => {
+    const res = await fetch(base + p, {
+      method,
+      headers: { cookie, ...(body ? { 'content-type': 'application/json' } : {}) },
+      body: body ? JSON.stringify(body) : undefined,
+    });
+    const json = (await res.json()) as Record<string, any>; // eslint-disable-line @typescript-eslint/no-explicit-any
+    if (res.status >= 400) throw new Error(`${method} ${p}: ${res.status} ${JSON.stringify(json)}`);
+    return json;
+  };
+  const designs = await api('GET', '/api/designs');
+  const designId = designs.designs[0].id as string;
+  return { url, base, cookie, api, designId, server };
+}
+
+export function startWorker(url: string, threads: number): Proc {
+  return startProcess('packages/server/src/worker/main.ts', {
+    DATABASE_URL: url,
+    SIGMATAIL_WORKER_THREADS: String(threads),
+    SIGMATAIL_POLL_MS: '1000',
+    SMTP_PORT: '9',
+  });
+}
+
+type Stack = Awaited<ReturnType<typeof startStack>>;
+
+/** Launches a run and polls until it ends; returns wall time from POST to 'done' seen by the client. */
+export async function timedRun(stack: Stack, samples: number, seed: string) {
+  const t0 = performance.now();
+  const { id } = await stack.api('POST', '/api/runs', {
+    designId: stack.designId,
+    samples,
+    seed,
+    plan: 'random',
+  });
+  for (;;) {
+    const { run } = await stack.api('GET', `/api/runs/${id}`);
+    if (run.status === 'done') {
+      const wall = (performance.now() - t0) / 1000;
+      const db = (Date.parse(run.finishedAt) - Date.parse(run.createdAt)) / 1000;
+      return { id: id as string, wall, db };
+    }
+    if (run.status === 'failed' || run.status === 'cancelled')
+      throw new Error(`run ${run.status}: ${run.error}`);
+    await new Promise((r) => setTimeout(r, 20));
+  }
+}
+
+const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
+
+async function main() {
+  const samples = Number(process.argv[2] ?? 1_000_000);
+  const repeats = Number(process.argv[3] ?? 3);
+  const stack = await startStack('sigmatail_bench_e2e');
+  const rows: { threads: number; wall: number; db: number }[] = [];
+  try {
+    for (const threads of [1, 2]) {
+      const worker = startWorker(stack.url, threads);
+      await worker.waitFor(/started/);
+      await timedRun(stack, 100_000, 'warm-up'); // threads load the engine, JIT warms up
+      const walls: number[] = [];
+      const dbs: number[] = [];
+      for (let i = 0; i < repeats; i++) {
+        const r = await timedRun(stack, samples, `bench-${threads}-${i}`);
+        walls.push(r.wall);
+        dbs.push(r.db);
+        console.log(
+          `threads=${threads} run ${i + 1}: ${r.wall.toFixed(2)} s (database clock ${r.db.toFixed(2)} s)`,
+        );
+      }
+      rows.push({ threads, wall: median(walls), db: median(dbs) });
+      await worker.stop();
+    }
+  } finally {
+    await stack.server.stop();
+  }
+  console.log(
+    `\nEnd to end, ${samples.toLocaleString('en-US')} samples, DC point per sample (median of ${repeats}):`,
+  );
+  console.log('threads | POST → done (s) | samples/s | speed-up');
+  for (const r of rows) {
+    console.log(
+      `${String(r.threads).padStart(7)} | ${r.wall.toFixed(2).padStart(15)} | ${Math.round(samples / r.wall)
+        .toLocaleString('en-US')
+        .padStart(9)} | ${(rows[0]!.wall / r.wall).toFixed(2)}×`,
+    );
+  }
+}
+
+if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) await main();
