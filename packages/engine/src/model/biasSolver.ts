@@ -89,12 +89,13 @@ function evalAt(c: BiasCircuit, ia1: number, ia2: number, bp: BiasPoint): void {
  * currents when `warm` is set; if Newton stalls, a nested bisection (each F_i is monotone in its own
  * current, so the brackets [0, Imax] always hold a root) finds the point. Writes into `bp`,
  * allocates nothing, and returns the status; a non-'ok' status names why there is no valid bias.
+ * `stepTol` is the relative Newton step at which the point counts as solved (default 1e-12).
  *
  * @example
  * const bp = createBiasPoint();
  * solveBiasInto(circuit, bp, false); // 'ok'; bp.ia1 ≈ 0.9e-3 A for a 12AX7 splitter
  */
-export function solveBiasInto(c: BiasCircuit, bp: BiasPoint, warm: boolean): BiasStatus {
+export function solveBiasInto(c: BiasCircuit, bp: BiasPoint, warm: boolean, stepTol = 1e-12): BiasStatus {
   const span = c.bPlus - c.tail;
   if (!(span > 0) || !(c.bPlus > 0)) return finish(c, bp, 'supply-too-low', 0, 0, 0);
   const rkk = c.rk + c.rt;
@@ -115,9 +116,11 @@ export function solveBiasInto(c: BiasCircuit, bp: BiasPoint, warm: boolean): Bia
     const det = j11 * j22 - j12 * j21;
     const d1 = (f1 * j22 - f2 * j12) / det;
     const d2 = (j11 * f2 - j21 * f1) / det;
-    // Converged: the Newton update is below 1e-10 of the current, so take it without another
-    // model evaluation (gm and rp from the last evaluation differ by a relative ~1e-10).
-    if (Math.abs(d1) <= 1e-10 * x1 + 1e-18 && Math.abs(d2) <= 1e-10 * x2 + 1e-18) {
+    // Converged: the Newton update is below stepTol of the current, so take it without another
+    // model evaluation. Newton is quadratic here, so the updated currents are good to ~stepTol²;
+    // gm and rp come from the last evaluation and are off by a relative ~stepTol at most. The
+    // kernel passes 1e-6 (far below any part tolerance; saves one evaluation per sample).
+    if (Math.abs(d1) <= stepTol * x1 + 1e-18 && Math.abs(d2) <= stepTol * x2 + 1e-18) {
       return finish(c, bp, classify(bp, x1 - d1, x2 - d2), it, x1 - d1, x2 - d2);
     }
     // Backtracking on |F1| + |F2|: the Newton direction always descends it (F is monotone), so

@@ -99,12 +99,18 @@ export function createStageContext(d: ResolvedDesign): StageContext {
 }
 
 /**
- * Solves the bias point of one sample into ctx.bp (warm-started from ctx.bp when `warm`).
+ * Solves the bias point of one sample into ctx.bp (warm-started from ctx.bp when `warm`);
+ * `stepTol` as in {@link solveBiasInto}.
  *
  * @example
  * solveStageBias(ctx, nominalStageInputs(design), false); // 'ok'
  */
-export function solveStageBias(ctx: StageContext, x: StageInputs, warm: boolean): BiasPoint['status'] {
+export function solveStageBias(
+  ctx: StageContext,
+  x: StageInputs,
+  warm: boolean,
+  stepTol = 1e-12,
+): BiasPoint['status'] {
   const b = ctx.bias;
   b.rl1 = x.rl1;
   b.rl2 = x.rl2;
@@ -114,7 +120,7 @@ export function solveStageBias(ctx: StageContext, x: StageInputs, warm: boolean)
   b.perv2 = x.perv2;
   b.muScale1 = x.mu1;
   b.muScale2 = x.mu2;
-  return solveBiasInto(b, ctx.bp, warm);
+  return solveBiasInto(b, ctx.bp, warm, stepTol);
 }
 
 /**

@@ -53,6 +53,8 @@ export interface StageKernel {
 // Column of each metric, as plain constants so the hot loop does no keyed lookups.
 const col = (id: MetricId) => METRIC_IDS.indexOf(id);
 const VALID = col('valid');
+/** Relative Newton step that ends a per-sample bias solve (gm, rp good to ~1e-6; see solveBiasInto). */
+const SAMPLE_STEP_TOL = 1e-6;
 
 /**
  * Creates the stage kernel of a design. Per sample it solves the DC point (warm-started Newton
@@ -129,7 +131,7 @@ export function createStageKernel(design: ResolvedDesign, options?: { dcPerSampl
       let gm1: number, gm2: number, rp1: number, rp2: number;
       if (dcPerSample) {
         predictor.predictInto(x);
-        if (solveStageBias(ctx, x, nominalValid) !== 'ok') {
+        if (solveStageBias(ctx, x, nominalValid, SAMPLE_STEP_TOL) !== 'ok') {
           writeInvalid(out, s);
           continue;
         }
