@@ -23,14 +23,20 @@ try {
   }
   // autocannon reports p97.5 and p99 but not p95: record every response time and rank them.
   const times: number[] = [];
-  const instance = autocannon({
-    url: `${stack.base}/api/runs/${id}`,
-    connections,
-    duration: seconds,
-    headers: { cookie: stack.cookie },
+  const result = await new Promise<autocannon.Result>((resolve, reject) => {
+    const instance = autocannon(
+      {
+        url: `${stack.base}/api/runs/${id}`,
+        connections,
+        duration: seconds,
+        headers: { cookie: stack.cookie },
+      },
+      (err, res) => (err ? reject(err) : resolve(res)),
+    );
+    instance.on('response', (_client: unknown, _status: number, _bytes: number, ms: number) =>
+      times.push(ms),
+    );
   });
-  instance.on('response', (_client, _status, _bytes, ms) => times.push(ms));
-  const result = await instance;
   const before = (await stack.api('GET', `/api/runs/${id}`)).run;
   times.sort((a, b) => a - b);
   const q = (p: number) => times[Math.min(times.length - 1, Math.floor(p * times.length))]!;
