@@ -55,10 +55,11 @@ export function summarizeColumn(
     s2 += dx * dx;
     if (x < min) min = x;
     if (x > max) max = x;
-    const b = Math.floor((x - lo) * inv);
+    // Position in bins; truncation equals floor once b >= 0.
+    const b = (x - lo) * inv;
     if (b < 0) under++;
     else if (b >= bins) over++;
-    else scratch[b]++;
+    else scratch[b | 0]++;
   }
   if (count === 0) {
     return { count, mean: null, m2: 0, min: null, max: null, under, over, binOffset: 0, bins: [] };
