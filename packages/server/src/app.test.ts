@@ -33,5 +33,10 @@ describe('createApp', () => {
     const huge = await c.request('POST', '/api/auth/login', JSON.stringify({ email: 'a'.repeat(3_000_000) }));
     expect(huge.status).toBe(413);
     expect((await c.request('PUT', '/api/designs')).status).toBe(404);
+    const undecodable = await c.get('/api/designs/%E0%A4%A');
+    expect(undecodable.status).toBe(400);
+    expect(undecodable.body.error.message).toMatch(/decode/i);
+    const notObject = await c.request('POST', '/api/auth/login', '[1,2]');
+    expect(notObject.status).toBe(400);
   });
 });

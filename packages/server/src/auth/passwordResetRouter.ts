@@ -61,7 +61,12 @@ export function createPasswordResetRouter({ db, mailer, config }: AppDeps): Rout
         .set((eb) => ({ password_hash: passwordHash, session_epoch: eb('session_epoch', '+', 1) }))
         .where('id', '=', reset.user_id)
         .execute();
-      await recordAudit(tx, { workspaceId: null, userId: reset.user_id, action: 'auth.reset' });
+      const member = await findSessionUser(tx, { userId: reset.user_id });
+      await recordAudit(tx, {
+        workspaceId: member?.workspaceId ?? null,
+        userId: reset.user_id,
+        action: 'auth.reset',
+      });
     });
     res.json({ ok: true });
   });

@@ -36,11 +36,16 @@ export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
         issues,
       },
     };
-  } else if (isBodyParserError(err)) {
+  } else if (isClientError(err)) {
+    // body-parser (bad JSON, too large) and the router (undecodable %-escapes) mark these 4xx.
     status = err.status;
-    body = {
-      error: { message: err.type === 'entity.too.large' ? 'request body too large' : 'malformed JSON body' },
-    };
+    const message =
+      err.type === 'entity.too.large'
+        ? 'request body too large'
+        : err.type === 'entity.parse.failed'
+          ? 'malformed JSON body'
+          : err.message;
+    body = { error: { message } };
   } else {
     console.error(err);
     body = { error: { message: 'internal error' } };
@@ -49,7 +54,7 @@ export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
   res.status(status).json(body);
 };
 
-function isBodyParserError(err: unknown): err is { status: number; type: string } {
-  const e = err as { status?: unknown; type?: unknown };
-  return typeof e?.status === 'number' && e.status >= 400 && e.status < 500 && typeof e.type === 'string';
+function isClientError(err: unknown): err is { status: number; type?: string; message: string } {
+  const e = err as { status?: unknown; expose?: unknown };
+  return typeof e?.status === 'number' && e.status >= 400 && e.status < 500 && e.expose !== false;
 }
