@@ -71,6 +71,8 @@ describe('api client', () => {
     const fetchMock = respond(200, { designs: [] });
     vi.stubGlobal('fetch', fetchMock);
     await api.designs.list('12AX7 & friends');
-    expect((fetchMock.mock.calls[0] as unknown as [string])[0]).toBe('/api/designs?q=12AX7+%26+friends&archived=exclude');
+    expect((fetchMock.mock.calls[0] as unknown as [string])[0]).toBe(
+      '/api/designs?q=12AX7+%26+friends&archived=exclude',
+    );
   });
 });
