@@ -94,4 +94,36 @@ describe('role × route matrix', () => {
     }
     expect(failures).toEqual([]);
   });
+
+  it('answers malformed ids and junk bodies with 4xx, never 500 (as admin, who passes every role check)', async () => {
+    const junk = {
+      email: 5,
+      password: [],
+      role: 'owner',
+      document: 'x',
+      token: {},
+      name: null,
+      samples: 'many',
+      designId: 'x',
+    };
+    const failures: string[] = [];
+    for (const route of routes) {
+      const [method, pattern] = route.split(' ') as [string, string];
+      for (const bad of ['not-an-id', '12345', '%20']) {
+        const url = pattern.replace(/:[A-Za-z]+/g, bad);
+        if (url === pattern && bad !== 'not-an-id') continue;
+        const client = Object.assign(
+          Object.create(Object.getPrototypeOf(clients.admin)),
+          clients.admin,
+        ) as TestClient;
+        const res = await client.request(
+          method,
+          url,
+          method === 'GET' || method === 'DELETE' ? undefined : junk,
+        );
+        if (res.status >= 500) failures.push(`${method} ${url}: ${res.status} ${JSON.stringify(res.body)}`);
+      }
+    }
+    expect(failures).toEqual([]);
+  });
 });
