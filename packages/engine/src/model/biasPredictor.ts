@@ -3,17 +3,19 @@ import { solveStageBias, type StageContext, type StageInputs } from './stageEval
 /** Inputs that move the DC point. */
 const DC_INPUTS = ['rl1', 'rl2', 'rk', 'rt', 'perv1', 'perv2', 'mu1', 'mu2'] as const;
 
-/** First-order start point for the per-sample bias solve. */
+/** Second-order start point for the per-sample bias solve. */
 export interface BiasPredictor {
   /** Writes predicted Ia1, Ia2 (A) for inputs `x` into ctx.bp. */
   predictInto(x: StageInputs): void;
 }
 
 /**
- * Builds a linear predictor of the plate currents around the nominal point: dIa/d(log p) for each
- * DC input, by central differences of full solves (done once per kernel). Warm-starting Newton from
+ * Builds a quadratic predictor of the plate currents around the nominal point: first and (diagonal)
+ * second derivatives of Ia with respect to each DC input's relative change, plus the perv1·perv2
+ * cross term, by central differences of full solves (done once per kernel). Warm-starting Newton from
  * nominal alone is poor for long tails, where a few percent on Rt moves Vk by volts and the first
- * residual is large; the predicted start is off only to second order, so Newton needs 2–3 steps.
+ * residual is large; the predicted start is off only to third order (and by resistor × tube cross terms), so Newton
+ * usually needs one step.
  *
  * @example
  * const pred = createBiasPredictor(ctx, nominal);
@@ -25,8 +27,14 @@ export function createBiasPredictor(ctx: StageContext, nominal: StageInputs): Bi
   const ia2 = ctx.bp.ia2;
   const s1 = new Float64Array(DC_INPUTS.length);
   const s2 = new Float64Array(DC_INPUTS.length);
+  // Half the second derivatives d²Ia/dd_k² (diagonal), and the perv1·perv2 cross term: tube
+  // spreads are the widest (10 % and more), so their curvature is worth carrying.
+  const h1 = new Float64Array(DC_INPUTS.length);
+  const h2 = new Float64Array(DC_INPUTS.length);
+  let x1 = 0;
+  let x2 = 0;
   const nom = new Float64Array(DC_INPUTS.map((k) => nominal[k]));
-  const h = 1e-4;
+  const h = 0.01;
   if (status === 'ok') {
     DC_INPUTS.forEach((k, i) => {
       const up = solveAt(ctx, { ...nominal, [k]: nominal[k] * (1 + h) });
@@ -34,8 +42,18 @@ export function createBiasPredictor(ctx: StageContext, nominal: StageInputs): Bi
       if (up && dn) {
         s1[i] = (up[0] - dn[0]) / (2 * h);
         s2[i] = (up[1] - dn[1]) / (2 * h);
+        h1[i] = (up[0] - 2 * ia1 + dn[0]) / (2 * h * h);
+        h2[i] = (up[1] - 2 * ia2 + dn[1]) / (2 * h * h);
       }
     });
+    const pp = solveAt(ctx, { ...nominal, perv1: nominal.perv1 * (1 + h), perv2: nominal.perv2 * (1 + h) });
+    const pm = solveAt(ctx, { ...nominal, perv1: nominal.perv1 * (1 + h), perv2: nominal.perv2 * (1 - h) });
+    const mp = solveAt(ctx, { ...nominal, perv1: nominal.perv1 * (1 - h), perv2: nominal.perv2 * (1 + h) });
+    const mm = solveAt(ctx, { ...nominal, perv1: nominal.perv1 * (1 - h), perv2: nominal.perv2 * (1 - h) });
+    if (pp && pm && mp && mm) {
+      x1 = (pp[0] - pm[0] - mp[0] + mm[0]) / (4 * h * h);
+      x2 = (pp[1] - pm[1] - mp[1] + mm[1]) / (4 * h * h);
+    }
   }
   return {
     predictInto(x: StageInputs): void {
