@@ -3,6 +3,7 @@ import type { AppDeps } from './appDeps.js';
 import { createAuditRouter } from './audit/auditRouter.js';
 import { createAuthRouter } from './auth/authRouter.js';
 import { createPasswordResetRouter } from './auth/passwordResetRouter.js';
+import { createWorkspaceSwitchRouter } from './auth/workspaceSwitchRouter.js';
 import { createDesignsRouter } from './designs/designsRouter.js';
 import { createDevInboxRouter } from './devInbox/devInboxRouter.js';
 import { createHealthRouter } from './http/healthRouter.js';
@@ -21,6 +22,7 @@ export function apiRouters(deps: AppDeps): Router[] {
     createHealthRouter(deps),
     createAuthRouter(deps),
     createPasswordResetRouter(deps),
+    createWorkspaceSwitchRouter(deps),
     createAcceptInviteRouter(deps),
     createInvitesRouter(deps),
     createUsersRouter(deps),

@@ -9,6 +9,8 @@ export const foundationRouteAccess: RouteAccessTable = {
   'POST /api/auth/login': 'public',
   'POST /api/auth/logout': 'public',
   'GET /api/auth/me': 'signedIn',
+  'GET /api/auth/workspaces': 'signedIn',
+  'POST /api/auth/workspace': 'signedIn',
   'POST /api/auth/forgot': 'public',
   'POST /api/auth/reset': 'public',
   'GET /api/invites/:token': 'public',

@@ -87,7 +87,7 @@ describe('invite by e-mail, end to end through the SMTP fake', () => {
     expect(unknown.status).toBe(404);
   });
 
-  it('lets an existing account join another workspace only with its own password', async () => {
+  it('lets an existing account join another workspace only with its own password, then switch between them', async () => {
     const other = await buildUser(app.deps.db, { role: 'viewer' });
     const admin = await buildUser(app.deps.db, { role: 'admin' });
     const adminClient = await signIn(app, admin);
@@ -103,6 +103,25 @@ describe('invite by e-mail, end to end through the SMTP fake', () => {
       .post('/api/auth/accept-invite', { token, name: 'X', password: other.password });
     expect(right.status).toBe(200);
     expect(right.body.user).toMatchObject({ role: 'engineer', workspace: { id: admin.workspaceId } });
+
+    // Sign-in lands in the first workspace; the user switches to the other one.
+    const client = await signIn(app, other);
+    expect((await client.get('/api/auth/me')).body.user.workspace.id).toBe(other.workspaceId);
+    const list = await client.get('/api/auth/workspaces');
+    expect(list.body.workspaces.map((w: { id: string }) => w.id)).toEqual([
+      other.workspaceId,
+      admin.workspaceId,
+    ]);
+    const switched = await client.post('/api/auth/workspace', { workspaceId: admin.workspaceId });
+    expect(switched.body.user).toMatchObject({ role: 'engineer', workspace: { id: admin.workspaceId } });
+    expect((await client.get('/api/auth/me')).body.user.role).toBe('engineer');
+    const stranger = await buildUser(app.deps.db);
+    const refused = await client.post('/api/auth/workspace', { workspaceId: stranger.workspaceId });
+    expect(refused.status).toBe(404);
+    expect(refused.body.error.field).toBe('workspaceId');
+    expect((await client.post('/api/auth/workspace', { workspaceId: 'x' })).body.error.field).toBe(
+      'workspaceId',
+    );
   });
 });
 
