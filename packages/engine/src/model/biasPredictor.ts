@@ -67,24 +67,24 @@ export function createBiasPredictor(ctx: StageContext, nominal: StageInputs): Bi
       const d7 = x.mu2 / nom[7] - 1;
       const p1 =
         ia1 +
-        s1[0] * d0 +
-        s1[1] * d1 +
-        s1[2] * d2 +
-        s1[3] * d3 +
-        s1[4] * d4 +
-        s1[5] * d5 +
-        s1[6] * d6 +
-        s1[7] * d7;
+        d0 * (s1[0] + h1[0] * d0) +
+        d1 * (s1[1] + h1[1] * d1) +
+        d2 * (s1[2] + h1[2] * d2) +
+        d3 * (s1[3] + h1[3] * d3) +
+        d4 * (s1[4] + h1[4] * d4 + x1 * d5) +
+        d5 * (s1[5] + h1[5] * d5) +
+        d6 * (s1[6] + h1[6] * d6) +
+        d7 * (s1[7] + h1[7] * d7);
       const p2 =
         ia2 +
-        s2[0] * d0 +
-        s2[1] * d1 +
-        s2[2] * d2 +
-        s2[3] * d3 +
-        s2[4] * d4 +
-        s2[5] * d5 +
-        s2[6] * d6 +
-        s2[7] * d7;
+        d0 * (s2[0] + h2[0] * d0) +
+        d1 * (s2[1] + h2[1] * d1) +
+        d2 * (s2[2] + h2[2] * d2) +
+        d3 * (s2[3] + h2[3] * d3) +
+        d4 * (s2[4] + h2[4] * d4 + x2 * d5) +
+        d5 * (s2[5] + h2[5] * d5) +
+        d6 * (s2[6] + h2[6] * d6) +
+        d7 * (s2[7] + h2[7] * d7);
       // A prediction outside the physical range falls back to the nominal currents.
       ctx.bp.ia1 = p1 > 0 ? p1 : ia1;
       ctx.bp.ia2 = p2 > 0 ? p2 : ia2;
