@@ -6,14 +6,18 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { TEST_DATABASE_URL } from './testing/testDatabaseUrl.js';
 
 const HERE = path.dirname(fileURLToPath(import.meta.url));
-const TSX = path.resolve(HERE, '../../../node_modules/.bin/tsx');
 
 /** Runs main.ts as a real process; resolves on exit or once `until` shows up in stdout. */
 function runMain(env: Record<string, string>, until?: RegExp) {
-  const child = spawn(TSX, ['--conditions=@sigmatail/source', path.join(HERE, 'main.ts')], {
-    env: { ...process.env, DATABASE_URL: TEST_DATABASE_URL, SIGMATAIL_SECRET: 'x'.repeat(40), ...env },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
+  // node itself (not the tsx wrapper), so the PID we signal is the server's own.
+  const child = spawn(
+    process.execPath,
+    ['--import', 'tsx', '--conditions=@sigmatail/source', path.join(HERE, 'main.ts')],
+    {
+      env: { ...process.env, DATABASE_URL: TEST_DATABASE_URL, SIGMATAIL_SECRET: 'x'.repeat(40), ...env },
+      stdio: ['ignore', 'pipe', 'pipe'],
+    },
+  );
   let stdout = '';
   let stderr = '';
   child.stderr.on('data', (d: Buffer) => (stderr += d.toString()));
