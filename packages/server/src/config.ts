@@ -17,6 +17,7 @@ export interface AppConfig {
   webDist: string | null;
 }
 
+// Session length, sign-in limits: common practice, no source (a working day; 10 failures per 15 min).
 export const DEFAULT_CONFIG: Omit<AppConfig, 'secret'> = {
   appUrl: 'http://127.0.0.1:3000',
   sessionTtlSeconds: 12 * 3600,

@@ -1,3 +1,4 @@
+import { createHmac } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { buildUser } from '../testing/buildUser.js';
 import { signIn } from '../testing/signIn.js';
@@ -22,6 +23,7 @@ describe('sign-in', () => {
       workspace: { id: u.workspaceId },
     });
     const cookie = res.headers.getSetCookie().find((c) => c.startsWith('sigmatail_session='))!;
+    // Attribute names per RFC 6265 §4.1.1 (HttpOnly, Path, Max-Age) and RFC 6265bis §4.1.2.7 (SameSite).
     expect(cookie).toMatch(/HttpOnly/i);
     expect(cookie).toMatch(/SameSite=Lax/i);
     expect(cookie).toMatch(/Path=\//);
@@ -30,6 +32,23 @@ describe('sign-in', () => {
     const me = await client.get('/api/auth/me');
     expect(me.status).toBe(200);
     expect(me.body.user.email).toBe(u.email);
+  });
+
+  it('issues an HS256 JWT whose signature checks out independently of jose (RFC 7515 §3, RFC 7518 §3.2)', async () => {
+    const u = await buildUser(app.deps.db);
+    const client = await signIn(app, u);
+    const token = client.cookie!.split('=')[1]!;
+    const [header, payload, signature] = token.split('.') as [string, string, string];
+    // RFC 7518 §3.2: HS256 = HMAC-SHA256 over "header.payload" with the key, base64url without padding (RFC 7515 §2).
+    const expected = createHmac('sha256', app.deps.config.secret)
+      .update(`${header}.${payload}`)
+      .digest('base64url');
+    expect(signature).toBe(expected);
+    expect(JSON.parse(Buffer.from(header, 'base64url').toString())).toEqual({ alg: 'HS256' });
+    const claims = JSON.parse(Buffer.from(payload, 'base64url').toString());
+    expect(claims).toMatchObject({ sub: u.id, ws: u.workspaceId, ep: 0 });
+    // RFC 7519 §4.1.4/§4.1.6: exp and iat are NumericDate seconds; their gap is the session length.
+    expect(claims.exp - claims.iat).toBe(3600);
   });
 
   it('refuses a wrong password or unknown email with the same 401', async () => {

@@ -8,6 +8,7 @@ import { HttpError } from '../http/httpError.js';
 import { findSessionUser } from './findSessionUser.js';
 import { hashToken, newMailToken } from './mailToken.js';
 
+// One hour: common practice, no source.
 const RESET_TTL_MS = 60 * 60 * 1000;
 const forgotBody = z.object({ email: emailField });
 const resetBody = z.object({ token: tokenField, password: newPasswordField });

@@ -7,6 +7,7 @@ import { requireRole } from '../auth/requireRole.js';
 import { emailField, roleField } from '../http/fields.js';
 import { HttpError } from '../http/httpError.js';
 
+// Seven days: common practice, no source.
 const INVITE_TTL_MS = 7 * 24 * 3600 * 1000;
 const inviteBody = z.object({ email: emailField, role: roleField });
 
