@@ -22,7 +22,9 @@ export const DEMO_DESIGNS: readonly Record<string, unknown>[] = [
       rload2: { value: '220k', tolerance: 5, spread: { kind: 'normal' } },
     },
     specs: [
+      // Balance and CMRR limits are the invented workshop's own specs.
       { metric: 'balanceDb', min: -0.5, max: 0.5, label: 'Output balance' },
+      // 1 W per section is the 12AX7 plate dissipation rating: from memory.
       { metric: 'pd1', max: 1, label: 'Plate 1 dissipation' },
       { metric: 'pd2', max: 1, label: 'Plate 2 dissipation' },
     ],
