@@ -6,7 +6,12 @@ import { parseValue } from '../values/parseValue.js';
 const finite = () => z.number().refine(Number.isFinite, 'must be a finite number');
 const spreadK = finite().positive().optional();
 
-/** A spread (distribution) of a part value around nominal; tolerance = k·σ where it applies. */
+/**
+ * A spread (distribution) of a part value around nominal; tolerance = k·σ where it applies.
+ *
+ * @example
+ * spreadSchema.parse({ kind: 'binned', inner: 1 }); // 5 % parts with the ±1 % ones sorted out
+ */
 export const spreadSchema = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('normal'), k: spreadK }),
   z.object({ kind: z.literal('uniform') }),
@@ -24,14 +29,24 @@ const partValue = z.union([
   }),
 ]);
 
-/** A toleranced resistor: value in ohms or as text, tolerance in percent (0 ≤ t < 100). */
+/**
+ * A toleranced resistor: value in ohms or as text, tolerance in percent (0 ≤ t < 100).
+ *
+ * @example
+ * partSchema.parse({ value: '4k7', tolerance: 1, spread: { kind: 'normal' } });
+ */
 export const partSchema = z.object({
   value: partValue,
   tolerance: finite().min(0).lt(100, 'must be below 100 %'),
   spread: spreadSchema,
 });
 
-/** How the two sections of one envelope vary (percent, 1σ) and how they are paired. */
+/**
+ * How the two sections of one envelope vary (percent, 1σ) and how they are paired.
+ *
+ * @example
+ * tubeSpreadSchema.parse({ perveanceSd: 10, muSd: 3, sectionCorrelation: 0.5, pairing: { quantity: 'ia', within: 10 } });
+ */
 export const tubeSpreadSchema = z.object({
   perveanceSd: finite().min(0).lt(100),
   muSd: finite().min(0).lt(100),
@@ -39,7 +54,12 @@ export const tubeSpreadSchema = z.object({
   pairing: z.object({ quantity: z.enum(['ia', 'gm', 'mu']), within: finite().positive().lt(100) }).optional(),
 });
 
-/** A limit on one metric; at least one of min and max. */
+/**
+ * A limit on one metric (in the metric's SI unit); at least one of min and max.
+ *
+ * @example
+ * specSchema.parse({ metric: 'balanceDb', min: -1, max: 1 });
+ */
 export const specSchema = z
   .object({
     metric: z.enum(METRIC_IDS),
@@ -104,7 +124,12 @@ export const designSchema = z
     path: ['drive'],
   });
 
-/** The design document as written (part values may be text). */
+/**
+ * The design document as written (part values may be text).
+ *
+ * @example
+ * const d: Design = JSON.parse(readFileSync('examples/guitar-12ax7-cap-coupled.json', 'utf8'));
+ */
 export type Design = z.infer<typeof designSchema>;
 /** One toleranced part as written. */
 export type Part = z.infer<typeof partSchema>;
@@ -119,7 +144,13 @@ export type PartName = keyof Design['parts'];
 
 /** A part with its value resolved to ohms. */
 export type ResolvedPart = Omit<Part, 'value'> & { value: number };
-/** The design with every part value resolved to a number of ohms. */
+/**
+ * The design with every part value resolved to a number of ohms.
+ *
+ * @example
+ * const r = parseDesign(json);
+ * if (r.ok) r.design.parts.rk.value; // 470 (Ω)
+ */
 export type ResolvedDesign = Omit<Design, 'parts'> & {
   parts: {
     [K in keyof Design['parts']]: Design['parts'][K] extends Part ? ResolvedPart : ResolvedPart | undefined;

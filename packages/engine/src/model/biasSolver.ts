@@ -43,9 +43,19 @@ export interface BiasPoint {
   iterations: number;
 }
 
-/** Below this plate current (A) a section counts as cut off (common practice, no source). */
+/**
+ * Below this plate current (A) a section counts as cut off (common practice, no source).
+ *
+ * @example
+ * bp.ia2 < CUTOFF_CURRENT; // section 2 is cut off
+ */
 export const CUTOFF_CURRENT = 1e-6;
-/** Grid-to-cathode voltage above which grid current flows and the model no longer holds (V). */
+/**
+ * Grid-to-cathode voltage above which grid current flows and the model no longer holds (V).
+ *
+ * @example
+ * bp.vgk1 > GRID_CURRENT_VGK; // grid 1 would draw current
+ */
 export const GRID_CURRENT_VGK = 0;
 
 /**

@@ -38,7 +38,12 @@ export const INPUTS = [
 /** One of {@link INPUTS}. */
 export type InputId = (typeof INPUTS)[number];
 
-/** The per-sample model Monte Carlo calls. */
+/**
+ * The per-sample model Monte Carlo calls; see {@link createStageKernel}.
+ *
+ * @example
+ * const k: StageKernel = createStageKernel(design, { dcPerSample: true });
+ */
 export interface StageKernel {
   /** Input columns, {@link INPUTS} order. */
   readonly inputs: readonly InputId[];

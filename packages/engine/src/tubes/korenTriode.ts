@@ -48,7 +48,12 @@ export function korenCurrent(p: KorenParams, vpk: number, vgk: number, scale = 1
   return (scale * 2 * Math.pow(e1, p.ex)) / p.kg1;
 }
 
-/** ln(1 + e^u) without overflow for large u or loss for very negative u. */
+/**
+ * ln(1 + e^u) without overflow for large u or loss for very negative u.
+ *
+ * @example
+ * softplus(0); // ≈ 0.693
+ */
 export function softplus(u: number): number {
   return u > 30 ? u : u < -30 ? Math.exp(u) : Math.log1p(Math.exp(u));
 }
