@@ -28,7 +28,12 @@ export function ConvergencePlot({
   percent?: boolean;
 }) {
   const pts = points.filter((p) => p.n > 0 && Number.isFinite(p.value));
-  if (pts.length < 2) return <p className="text-sm text-dim">Too few checkpoints to plot.</p>;
+  if (pts.length < 2)
+    return (
+      <p className="text-sm text-dim">
+        The run finished in one step, so there is no trace to plot; larger runs show one.
+      </p>
+    );
   const k = percent ? 100 : 1;
   const x = scaleLog()
     .domain([pts[0].n, pts[pts.length - 1].n])

@@ -141,7 +141,7 @@ export function Histogram({
         series.map((s, si) => (
           <g
             key={`legend-${si}`}
-            transform={`translate(${width - MARGIN.right - 150},${MARGIN.top + 4 + si * 14})`}
+            transform={`translate(${width - MARGIN.right - (series.length - si) * 64},${height - 15})`}
           >
             <rect width={10} height={10} fill={SERIES_COLOURS[si % SERIES_COLOURS.length]} />
             <text x={14} y={9} fontSize={10} fill={DIM}>

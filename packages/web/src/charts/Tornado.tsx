@@ -36,7 +36,7 @@ export function Tornado({
     .slice(0, 12);
   if (sorted.length === 0) return <p className="text-sm text-dim">No input moves this metric.</p>;
   const rowH = 20;
-  const left = 64;
+  const left = 96;
   const height = sorted.length * rowH + 44;
   const all = sorted.flatMap((b) => [b.low, b.high]).concat(centre);
   const x = scaleLinear()

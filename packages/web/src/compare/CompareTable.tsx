@@ -57,7 +57,9 @@ export function CompareTable({ loaded, metrics }: { loaded: Loaded[]; metrics: s
               <tr key={l.run.id} className="border-b border-rule/50">
                 <td className="py-1 font-sans">
                   <strong>{String.fromCharCode(65 + i)}</strong> {l.run.designName}{' '}
-                  <span className="text-xs text-dim">rev {l.run.revision}</span>
+                  <span className="num text-xs text-dim">
+                    rev {l.run.revision} · {l.run.id.slice(0, 8)} · {l.run.plan} · seed {l.run.seed}
+                  </span>
                 </td>
                 <td className="text-right">{j.samples.toLocaleString('en-US')}</td>
                 <td className="text-right" data-testid={`compare-yield-${i}`}>

@@ -107,26 +107,41 @@ export function LiveResults({ state }: { state: NominalState }) {
                   <td>{formatSi(m.vgk2, 'V')}</td>
                 </tr>
                 <tr>
-                  <th scope="row" className="text-left font-normal text-dim">
-                    Pd (max {pdMax} W)
+                  <th
+                    scope="row"
+                    className="text-left font-normal text-dim"
+                    title={`Rating ${pdMax} W per section`}
+                  >
+                    Pd
                   </th>
                   <td className={m.pd1 > pdMax ? 'font-semibold text-brick' : ''}>{formatSi(m.pd1, 'W')}</td>
                   <td className={m.pd2 > pdMax ? 'font-semibold text-brick' : ''}>{formatSi(m.pd2, 'W')}</td>
                 </tr>
                 <tr>
                   <th scope="row" className="text-left font-normal text-dim">
-                    gm / rp / mu
+                    gm
                   </th>
-                  <td>
-                    {formatSi(m.gm1, 'S')} · {formatSi(m.rp1, 'Ω')} · {formatSig(m.mu1)}
-                  </td>
-                  <td>
-                    {formatSi(m.gm2, 'S')} · {formatSi(m.rp2, 'Ω')} · {formatSig(m.mu2)}
-                  </td>
+                  <td>{formatSi(m.gm1, 'S')}</td>
+                  <td>{formatSi(m.gm2, 'S')}</td>
+                </tr>
+                <tr>
+                  <th scope="row" className="text-left font-normal text-dim">
+                    rp
+                  </th>
+                  <td>{formatSi(m.rp1, 'Ω')}</td>
+                  <td>{formatSi(m.rp2, 'Ω')}</td>
+                </tr>
+                <tr>
+                  <th scope="row" className="text-left font-normal text-dim">
+                    mu
+                  </th>
+                  <td>{formatSig(m.mu1)}</td>
+                  <td>{formatSig(m.mu2)}</td>
                 </tr>
               </tbody>
             </table>
             <dl className="mt-1">
+              <Row label="Plate dissipation rating">{pdMax} W per section</Row>
               <Row label="Cathode Vk">{formatSi(m.vk, 'V')}</Row>
               <Row label={`Heater–cathode (max ±${hkMax} V)`} warn={Math.abs(m.vhk) > hkMax}>
                 {formatSi(m.vhk, 'V')}

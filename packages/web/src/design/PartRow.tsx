@@ -10,11 +10,11 @@ import { formatSi } from '../format/formatSi.js';
 import { cellInput, FieldError, optionalNumber } from './formHelpers.js';
 
 const SPREADS = [
-  ['normal', 'Normal (tol = k·σ)'],
-  ['truncnormal', 'Normal, cut at ±tol'],
+  ['normal', 'Normal'],
+  ['truncnormal', 'Normal, cut'],
   ['uniform', 'Uniform'],
   ['lognormal', 'Log-normal'],
-  ['binned', 'Binned (inner sorted out)'],
+  ['binned', 'Binned'],
   ['empirical', 'Measured lot'],
   ['fixed', 'Fixed'],
 ] as const;
@@ -98,6 +98,7 @@ export function PartRow({ name, label }: { name: PartName; label: string }) {
       <td className="pr-2">
         <select
           aria-label={`${label} spread`}
+          title="Normal: tolerance = k·σ. Normal, cut: truncated at ±tolerance. Binned: parts within ±inner % were sorted out. Measured lot: measured values, resampled."
           className={cellInput}
           {...register(`parts.${name}.spread.kind`)}
         >

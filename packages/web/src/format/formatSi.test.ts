@@ -1,3 +1,4 @@
+// @vitest-environment node
 import { describe, expect, it } from 'vitest';
 import {
   formatCount,
@@ -15,6 +16,8 @@ describe('formatSig', () => {
     expect(formatSig(1.5)).toBe('1.5');
     expect(formatSig(0.012345, 2)).toBe('0.012');
     expect(formatSig(-3.14159, 4)).toBe(`${MINUS}3.142`);
+    expect(formatSig(180, 2)).toBe('180');
+    expect(formatSig(123456, 2)).toBe('120000');
   });
   it('switches to exponent form for very large and very small values', () => {
     expect(formatSig(1.234e7)).toBe('1.23e7');
@@ -50,6 +53,7 @@ describe('formatSi', () => {
   });
   it('respects the digits argument', () => {
     expect(formatSi(1.23456e-3, 'W', 5)).toBe('1.2346 mW');
+    expect(formatSi(0.18, 'W', 2)).toBe('180 mW');
   });
   it('handles non-finite input', () => {
     expect(formatSi(NaN, 'V')).toBe('— V');

@@ -31,7 +31,8 @@ export function formatSig(value: number, digits = 3): string {
     const [m, e] = value.toExponential(digits - 1).split('e');
     return minus(`${trimZeros(m)}e${Number(e)}`);
   }
-  return minus(trimZeros(value.toPrecision(digits)));
+  // Number() turns toPrecision's exponent form (180 at 2 digits → "1.8e+2") back into plain digits.
+  return minus(String(Number(value.toPrecision(digits))));
 }
 
 function trimZeros(text: string): string {

@@ -30,7 +30,7 @@ export function WorstCaseTable({ results }: { results: RunResults }) {
     <div className="overflow-x-auto">
       <p className="mb-2 text-xs text-dim">
         {wc.method === 'corners'
-          ? `All ${wc.evaluations.toLocaleString('en-US')} corners of ${wc.inputs.length} varied inputs`
+          ? `All ${(2 ** wc.inputs.length).toLocaleString('en-US')} corners of ${wc.inputs.length} varied inputs (${wc.evaluations.toLocaleString('en-US')} evaluations)`
           : 'Corner search (too many inputs for all corners)'}
         ; Monte Carlo columns from this run. Worst case is usually far wider than what production sees.
       </p>

@@ -1,5 +1,6 @@
 import { MAX_SAMPLES, MAX_SEED_LENGTH, SAMPLING_PLANS } from '@sigmatail/engine';
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { adminQueries } from '../api/queries/adminQueries.js';
 import { useState } from 'react';
 import { useNavigate } from 'react-router';
 import { api } from '../api/client.js';
@@ -7,24 +8,39 @@ import { runQueries } from '../api/queries/runQueries.js';
 import type { SamplingPlan } from '../api/types.js';
 import { can } from '../auth/permissions.js';
 import { useMe } from '../auth/useMe.js';
-import { ErrorNote } from '../components/QueryState.js';
+import { ErrorNote, Loading } from '../components/QueryState.js';
 import { Button, inputClass, labelClass, Panel } from '../components/ui.js';
 
 const PLAN_LABELS: Record<SamplingPlan, string> = {
-  random: 'Monte Carlo (independent draws)',
+  random: 'Random (Monte Carlo)',
   lhs: 'Latin hypercube',
-  sobol: 'Sobol sequence (scrambled)',
+  sobol: 'Sobol sequence',
 };
 
-/** Launch a run of the design's latest revision: N, seed, sampling plan and extra analyses. */
+/** Launch a run of the design's latest revision, starting from the workspace's default N and plan. */
 export function RunLaunchPanel({ designId, revision }: { designId: string; revision?: number }) {
+  const ws = useQuery(adminQueries.workspace());
+  if (ws.isPending) return <Loading />;
+  const defaults = ws.data?.settings ?? { defaultSamples: 100_000, defaultPlan: 'random' as const };
+  return (
+    <RunLaunchForm
+      designId={designId}
+      revision={revision}
+      samples={defaults.defaultSamples}
+      plan={defaults.defaultPlan}
+    />
+  );
+}
+
+function RunLaunchForm(props: { designId: string; revision?: number; samples: number; plan: SamplingPlan }) {
+  const { designId, revision } = props;
   const me = useMe();
   const qc = useQueryClient();
   const navigate = useNavigate();
   const allowed = can(me.role, 'launchRun');
-  const [samples, setSamples] = useState('100000');
+  const [samples, setSamples] = useState(String(props.samples));
   const [seed, setSeed] = useState('');
-  const [plan, setPlan] = useState<SamplingPlan>('random');
+  const [plan, setPlan] = useState<SamplingPlan>(props.plan);
   const [influence, setInfluence] = useState(true);
   const [worstCase, setWorstCase] = useState(true);
   const [varianceIndices, setVarianceIndices] = useState(false);

@@ -1,3 +1,4 @@
+// @vitest-environment node
 import { describe, expect, it } from 'vitest';
 import { cpkInterval } from './cpkInterval.js';
 import { wilsonInterval } from './wilsonInterval.js';

@@ -1,0 +1,58 @@
+import { render, screen, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { describe, expect, it } from 'vitest';
+import { defaultDesign } from './defaultDesign.js';
+import { DesignForm } from './DesignForm.js';
+import { evaluateNominal } from './useNominal.js';
+import { LiveResults } from './LiveResults.js';
+
+describe('live nominal results', () => {
+  it('shows gains, balance, operating point and trim for a valid design', () => {
+    render(<LiveResults state={evaluateNominal(defaultDesign())} />);
+    const panel = screen.getByRole('region', { name: 'Live nominal results' });
+    expect(within(panel).getByText('Differential gain')).toBeInTheDocument();
+    expect(screen.getByTestId('balance').textContent).toMatch(/dB$/);
+    expect(within(panel).getByText('Nearest E24')).toBeInTheDocument();
+    expect(within(panel).getByText('Ia')).toBeInTheDocument();
+  });
+
+  it('names the fields to fix when the design does not parse', () => {
+    const bad = {
+      ...defaultDesign(),
+      parts: { ...defaultDesign().parts, rk: { value: '4x7', tolerance: 5, spread: { kind: 'normal' } } },
+    };
+    render(<LiveResults state={evaluateNominal(bad)} />);
+    expect(screen.getByText('parts.rk.value')).toBeInTheDocument();
+  });
+
+  it('warns when plate dissipation exceeds the tube rating', () => {
+    // 12AX7 is rated 1 W per plate; 10k loads over a 1k tail at 320 V run each section hot (common practice, no source).
+    const hot = defaultDesign();
+    hot.supply.bPlus = 320;
+    hot.parts.rl1.value = '10k';
+    hot.parts.rl2.value = '10k';
+    hot.parts.rt.value = '1k';
+    hot.parts.rk.value = '100R';
+    render(<LiveResults state={evaluateNominal(hot)} />);
+    expect(screen.getByRole('alert', { name: 'Rating warnings' }).textContent).toMatch(/dissipates/);
+  });
+
+  it('updates the balance as RL2 is typed in the editor', async () => {
+    render(<DesignForm initial={defaultDesign()} readOnly={false} onSave={async () => undefined} />);
+    const before = screen.getByTestId('balance').textContent;
+    const rl2 = screen.getByLabelText('RL2 value');
+    await userEvent.clear(rl2);
+    await userEvent.type(rl2, '91k');
+    await screen.findByText(
+      (_, el) => el?.getAttribute('data-testid') === 'balance' && el.textContent !== before,
+    );
+    expect(screen.getByTestId('balance').textContent).not.toBe(before);
+  });
+
+  it('shows the form disabled in a read-only view', () => {
+    render(<DesignForm initial={defaultDesign()} readOnly />);
+    expect(screen.getByLabelText('Design name')).toBeDisabled();
+    expect(screen.getByLabelText('RL1 value')).toBeDisabled();
+    expect(screen.queryByRole('button', { name: /Save/ })).toBeNull();
+  });
+});
