@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { createBiasPoint, solveBiasInto, type BiasCircuit } from './biasSolver.js';
+import { createBiasPoint, solveBiasBracketedInto, solveBiasInto, type BiasCircuit } from './biasSolver.js';
+import { TUBE_TYPES } from '../tubes/tubeTypes.js';
 import { korenCurrent } from '../tubes/korenTriode.js';
 import { TUBE_CATALOG } from '../tubes/tubeCatalog.js';
 
@@ -87,5 +88,44 @@ describe('solveBiasInto', () => {
     const hot = circuit({ capCoupled: false, tail: 0, vg1: 60, vg2: 60, rk: 100, rt: 1e3 });
     expect(solveBiasInto(hot, bp, false)).toBe('grid-current');
     expect(bp.vgk1).toBeGreaterThan(0);
+  });
+
+  it('Newton agrees with the bracketing solve on 300 random circuits, statuses included', () => {
+    let seed = 2026;
+    const r = () => (seed = (Math.imul(seed, 1664525) + 1013904223) >>> 0) / 2 ** 32;
+    const a = createBiasPoint();
+    const b = createBiasPoint();
+    const seen = new Set<string>();
+    for (let n = 0; n < 300; n++) {
+      const c = circuit({
+        capCoupled: r() < 0.5,
+        bPlus: 60 + 400 * r(),
+        tail: r() < 0.5 ? 0 : -250 * r(),
+        vg1: 60 * r() - 40,
+        vg2: 60 * r() - 40,
+        rl1: 10 ** (3 + 2.5 * r()),
+        rl2: 10 ** (3 + 2.5 * r()),
+        rk: 10 ** (1 + 3 * r()),
+        rt: 10 ** (2 + 3 * r()),
+        ...{
+          perv1: 0.6 + 0.8 * r(),
+          perv2: 0.6 + 0.8 * r(),
+          muScale1: 0.8 + 0.4 * r(),
+          muScale2: 0.8 + 0.4 * r(),
+        },
+      });
+      c.tube = TUBE_CATALOG[TUBE_TYPES[n % TUBE_TYPES.length]].model;
+      const sa = solveBiasInto(c, a, false);
+      const sb = solveBiasBracketedInto(c, b);
+      expect(sa).not.toBe('no-convergence');
+      seen.add(sa);
+      if (sa === 'ok' || sb === 'ok') {
+        expect(sa).toBe(sb);
+        expect(Math.abs(a.ia1 / b.ia1 - 1)).toBeLessThan(1e-8);
+        expect(Math.abs(a.ia2 / b.ia2 - 1)).toBeLessThan(1e-8);
+        expectConsistent(c, a);
+      }
+    }
+    expect([...seen].sort()).toEqual(['cut-off', 'grid-current', 'ok']);
   });
 });

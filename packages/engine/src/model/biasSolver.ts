@@ -173,6 +173,21 @@ function innerIa1(c: BiasCircuit, bp: BiasPoint, ia2: number, max1: number): num
   return 0.5 * (lo + hi);
 }
 
+/**
+ * The bracketing solve alone (the fallback of {@link solveBiasInto}): nested bisection on
+ * Ia2 ∈ [0, Imax2] with Ia1 ∈ [0, Imax1] solved inside, each F_i being monotone in its own current.
+ * Slow (thousands of model evaluations) but cannot diverge; exported so tests can hold Newton to it.
+ *
+ * @example
+ * solveBiasBracketedInto(circuit, createBiasPoint()); // same point as solveBiasInto
+ */
+export function solveBiasBracketedInto(c: BiasCircuit, bp: BiasPoint): BiasStatus {
+  const span = c.bPlus - c.tail;
+  if (!(span > 0) || !(c.bPlus > 0)) return finish(c, bp, 'supply-too-low', 0, 0, 0);
+  const rkk = c.rk + c.rt;
+  return bisect(c, bp, span / (c.rl1 + rkk), span / (c.rl2 + rkk));
+}
+
 function bisect(c: BiasCircuit, bp: BiasPoint, max1: number, max2: number): BiasStatus {
   let lo = 0;
   let hi = max2;
