@@ -103,7 +103,7 @@ function evalAt(c: BiasCircuit, ia1: number, ia2: number, bp: BiasPoint): void {
  *
  * @example
  * const bp = createBiasPoint();
- * solveBiasInto(circuit, bp, false); // 'ok'; bp.ia1 ≈ 0.9e-3 A for a 12AX7 splitter
+ * solveBiasInto(circuit, bp, false); // 'ok'; bp.ia1 ≈ 1.3e-3 A for the guitar example's 12AX7 pair
  */
 export function solveBiasInto(c: BiasCircuit, bp: BiasPoint, warm: boolean, stepTol = 1e-12): BiasStatus {
   const span = c.bPlus - c.tail;

@@ -31,7 +31,7 @@ export function createStageGains(): StageGains {
  * Writes into `out` (no allocation) and returns it. Ohms in.
  *
  * @example
- * closedFormGainsInto(100, 100, 62.5e3, 62.5e3, 100e3, 100e3, 11e3, createStageGains()).a11; // ≈ −29
+ * closedFormGainsInto(100, 100, 62.5e3, 62.5e3, 100e3, 100e3, 11e3, createStageGains()).a11; // ≈ −32.9
  */
 export function closedFormGainsInto(
   mu1: number,

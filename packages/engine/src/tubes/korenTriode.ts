@@ -30,14 +30,15 @@ export interface TriodePoint {
  *   E1 = (Ep/kp)·ln(1 + exp(kp·(1/mu + Eg/sqrt(kvb + Ep²))))
  *   Ip = (E1^ex / kg1)·(1 + sgn(E1))
  * The (1 + sgn) factor is kept as published: for E1 > 0 it doubles the current, Ip = 2·E1^ex/kg1.
- * The published parameter sets were fitted with the SPICE form of that expression,
- * (pwr(E1,ex) + pwrs(E1,ex))/kg1, which is the same factor 2, so the catalog parameters assume it
- * (checked against each datasheet typical point in tubeCatalog.test.ts).
+ * The published SPICE listing writes the same thing as (pwr(E1,ex) + pwrs(E1,ex))/kg1 (from
+ * memory), so the published parameter sets were fitted with the factor 2 and the catalog assumes
+ * it. Checked against the datasheet typical points (tubeCatalog.test.ts): the 12AX7 set gives
+ * 0.95 mA at 250 V / −2 V with the factor (datasheet 1.2 mA) and 0.48 mA without it.
  * `scale` multiplies the current (perveance spread); `muScale` multiplies mu.
  * No grid current is modelled; callers flag Vgk > 0.
  *
  * @example
- * korenCurrent(KOREN_12AX7, 250, -2); // ≈ 1.0e-3 A
+ * korenCurrent(TUBE_CATALOG['12AX7'].model, 250, -2); // ≈ 0.95e-3 A
  */
 export function korenCurrent(p: KorenParams, vpk: number, vgk: number, scale = 1, muScale = 1): number {
   if (vpk <= 0) return 0;
@@ -64,7 +65,7 @@ export function softplus(u: number): number {
  *
  * @example
  * const pt = { ia: 0, gm: 0, ga: 0 };
- * korenPointInto(KOREN_12AX7, 250, -2, 1, 1, pt); // pt.gm ≈ 1.6e-3 S
+ * korenPointInto(TUBE_CATALOG['12AX7'].model, 250, -2, 1, 1, pt); // pt.gm ≈ 1.67e-3 S
  */
 export function korenPointInto(
   p: KorenParams,
