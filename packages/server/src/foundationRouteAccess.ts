@@ -16,6 +16,7 @@ export const foundationRouteAccess: RouteAccessTable = {
   'GET /api/invites/:token': 'public',
   'POST /api/auth/accept-invite': 'public',
   'POST /api/invites': ['admin'],
+  'DELETE /api/invites/:id': ['admin'],
   'GET /api/users': ['admin'],
   'PATCH /api/users/:id': ['admin'],
   'DELETE /api/users/:id': ['admin'],

@@ -125,6 +125,25 @@ describe('invite by e-mail, end to end through the SMTP fake', () => {
   });
 });
 
+describe('revoking an invite', () => {
+  it('kills the mailed link and drops it from the pending list', async () => {
+    const admin = await buildUser(app.deps.db, { role: 'admin' });
+    const adminClient = await signIn(app, admin);
+    const email = newEmail();
+    const { body } = await adminClient.post('/api/invites', { email, role: 'viewer' });
+    const token = linkToken((await readMail(app.deps.db, email)).text, 'invite');
+    expect((await adminClient.delete(`/api/invites/${body.invite.id}`)).status).toBe(204);
+    expect((await app.client().get(`/api/invites/${token}`)).status).toBe(404);
+    const pending = (await adminClient.get('/api/users')).body.invites.map((i: { id: string }) => i.id);
+    expect(pending).not.toContain(body.invite.id);
+    expect((await adminClient.delete(`/api/invites/${body.invite.id}`)).status).toBe(404);
+    // Another workspace's admin cannot revoke it either.
+    const other = await signIn(app, await buildUser(app.deps.db, { role: 'admin' }));
+    const second = await adminClient.post('/api/invites', { email: newEmail(), role: 'viewer' });
+    expect((await other.delete(`/api/invites/${second.body.invite.id}`)).status).toBe(404);
+  });
+});
+
 describe('roles admin', () => {
   it('keeps at least one admin in a workspace', async () => {
     const admin = await buildUser(app.deps.db, { role: 'admin' });

@@ -6,12 +6,13 @@ import { newMailToken } from '../auth/mailToken.js';
 import { requireRole } from '../auth/requireRole.js';
 import { emailField, roleField } from '../http/fields.js';
 import { HttpError } from '../http/httpError.js';
+import { uuidParam } from '../http/uuidParam.js';
 
 // Seven days: common practice, no source.
 const INVITE_TTL_MS = 7 * 24 * 3600 * 1000;
 const inviteBody = z.object({ email: emailField, role: roleField });
 
-/** POST /invites (admin): records an invite and mails the link APP_URL/invite/<token>. */
+/** POST /invites (admin): records an invite and mails the link APP_URL/invite/<token>; DELETE /invites/:id revokes it. */
 export function createInvitesRouter({ db, mailer, config }: AppDeps): Router {
   const router = Router();
 
@@ -63,6 +64,28 @@ export function createInvitesRouter({ db, mailer, config }: AppDeps): Router {
     res.status(201).json({
       invite: { id: invite.id, email: invite.email, role: invite.role, expiresAt: invite.expires_at },
     });
+  });
+
+  // Revoking deletes the open invite, so its mailed link stops working at once.
+  router.delete('/invites/:id', requireRole('admin'), async (req, res) => {
+    const id = uuidParam(req, 'id', 'invite');
+    const admin = req.user!;
+    const gone = await db
+      .deleteFrom('invites')
+      .where('id', '=', id)
+      .where('workspace_id', '=', admin.workspaceId)
+      .where('accepted_at', 'is', null)
+      .returning(['email', 'role'])
+      .executeTakeFirst();
+    if (!gone) throw new HttpError(404, 'invite not found');
+    await recordAudit(db, {
+      workspaceId: admin.workspaceId,
+      userId: admin.id,
+      action: 'invite.revoke',
+      target: gone.email,
+      detail: { role: gone.role, inviteId: id },
+    });
+    res.status(204).end();
   });
 
   return router;
