@@ -51,6 +51,15 @@ export interface BiasPoint {
  */
 export const CUTOFF_CURRENT = 1e-6;
 /**
+ * Plate-to-cathode voltage (V) below which a section counts as bottomed out: B+ is too low for its
+ * load resistor and the triode model no longer describes it (common practice, no source).
+ *
+ * @example
+ * bp.va1 - bp.vk < MIN_PLATE_VOLTAGE; // plate 1 bottomed out
+ */
+export const MIN_PLATE_VOLTAGE = 1;
+
+/**
  * Grid-to-cathode voltage above which grid current flows and the model no longer holds (V).
  *
  * @example
@@ -208,6 +217,7 @@ function bisect(c: BiasCircuit, bp: BiasPoint, max1: number, max2: number): Bias
 function classify(bp: BiasPoint, x1: number, x2: number): BiasStatus {
   if (bp.vgk1 > GRID_CURRENT_VGK || bp.vgk2 > GRID_CURRENT_VGK) return 'grid-current';
   if (x1 < CUTOFF_CURRENT || x2 < CUTOFF_CURRENT) return 'cut-off';
+  if (bp.va1 - bp.vk < MIN_PLATE_VOLTAGE || bp.va2 - bp.vk < MIN_PLATE_VOLTAGE) return 'supply-too-low';
   return 'ok';
 }
 
