@@ -76,6 +76,7 @@ describe('engineer designs, runs and compares', () => {
     await screenshot(page, '07-design-editor-live');
     await page.getByRole('button', { name: 'Create design' }).click();
     await page.waitForURL(/\/designs\/[0-9a-f-]{36}$/);
+    const designUrl = page.url();
 
     const launch = async (seed: string, plan: string) => {
       await page.getByLabel('Samples N').fill('4000');
@@ -111,6 +112,19 @@ describe('engineer designs, runs and compares', () => {
     await page.getByTestId('compare-p-1').waitFor({ timeout: 30_000 });
     expect(await page.getByTestId('compare-p-1').textContent()).toMatch(/^(< 0\.0001|\d\.\d{4})$/);
     await screenshot(page, '10-compare');
+
+    // A long run: the progress bar survives a reload (it polls GET /api/runs/:id), and cancel stops it.
+    await page.goto(designUrl);
+    await page.getByLabel('Samples N').fill('20000000');
+    await page.getByLabel('Seed (blank = new)').fill('e2e-long');
+    await page.getByRole('button', { name: 'Launch run' }).click();
+    await page.waitForURL(/\/runs\/[0-9a-f-]{36}$/);
+    await page.getByRole('progressbar', { name: 'Run progress' }).waitFor();
+    await screenshot(page, '12-run-progress');
+    await page.reload();
+    await page.getByRole('progressbar', { name: 'Run progress' }).waitFor();
+    await page.getByRole('button', { name: 'Cancel run' }).click();
+    await page.getByRole('heading', { name: 'Run cancelled' }).waitFor();
     await page.context().close();
   });
 });

@@ -9,6 +9,10 @@ function actorOf(e: AuditEvent): string {
   return e.user ? `${e.user.name} <${e.user.email}>` : 'system';
 }
 
+function hasDetail(d: unknown): boolean {
+  return d !== null && d !== undefined && !(typeof d === 'object' && Object.keys(d).length === 0);
+}
+
 export function AuditPanel() {
   const audit = useQuery(adminQueries.audit());
   return (
@@ -33,7 +37,7 @@ export function AuditPanel() {
                 <td className="pr-3">{actorOf(e)}</td>
                 <td className="pr-3 font-medium">{e.action}</td>
                 <td className="num text-xs break-all text-dim">
-                  {e.target ?? ''} {e.detail ? JSON.stringify(e.detail) : ''}
+                  {e.target ?? ''} {hasDetail(e.detail) ? JSON.stringify(e.detail) : ''}
                 </td>
               </tr>
             ))}

@@ -6,7 +6,7 @@ import { useMe } from '../auth/useMe.js';
 import { Logo } from './Logo.js';
 
 const linkClass = ({ isActive }: { isActive: boolean }) =>
-  `rounded-md px-3 py-1.5 text-sm font-medium transition-colors ${
+  `rounded-md px-3 py-1.5 text-sm font-medium ${
     isActive ? 'bg-[#f2a33a] text-petrol' : 'text-[#e6efe9] hover:bg-white/10'
   }`;
 

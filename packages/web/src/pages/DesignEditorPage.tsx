@@ -9,6 +9,7 @@ import { ErrorNote, Loading } from '../components/QueryState.js';
 import { SafetyCaution } from '../components/SafetyCaution.js';
 import { PageTitle } from '../components/ui.js';
 import { defaultDesign } from '../design/defaultDesign.js';
+import { ArchiveButton } from '../design/ArchiveButton.js';
 import { DesignForm } from '../design/DesignForm.js';
 import { RevisionList } from '../design/RevisionList.js';
 import { RunLaunchPanel } from '../runs/RunLaunchPanel.js';
