@@ -1,3 +1,4 @@
+import { ENGINE_VERSION } from '@sigmatail/engine';
 import { sql } from 'kysely';
 import type { Db } from './runsDb.js';
 
@@ -19,6 +20,8 @@ export class ChunkQueue {
     private readonly owner: string,
     private readonly leaseMs: number,
     private readonly maxAttempts = 3,
+    /** Only runs launched with this engine version are taken (a mixed-version fleet never mixes bits). */
+    private readonly engineVersion: string = ENGINE_VERSION,
   ) {}
 
   /** Leases up to `limit` open chunks (pending, or leased with an expired lease), oldest run first. */
@@ -28,7 +31,7 @@ export class ChunkQueue {
       with picked as (
         select c.run_id, c.chunk_index
         from run_chunks c join runs r on r.id = c.run_id
-        where r.status in ('queued', 'running') and c.state <> 'done'
+        where r.status in ('queued', 'running') and r.engine_version = ${this.engineVersion} and c.state <> 'done'
           and (c.state = 'pending' or c.lease_until < now())
           and c.attempts < ${this.maxAttempts}
         order by r.created_at, c.run_id, c.chunk_index
@@ -162,6 +165,7 @@ export class ChunkQueue {
         merge_lease_until = now() + ${this.leaseMs} * interval '1 millisecond'
       where id = (
         select id from runs where status = 'merging' and merge_lease_until < now()
+          and engine_version = ${this.engineVersion}
         order by created_at limit 1 for update skip locked)
       returning id`.execute(this.db);
     return rows[0]?.id;

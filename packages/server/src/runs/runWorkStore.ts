@@ -1,5 +1,5 @@
 import { sql } from 'kysely';
-import { EXTRAS_INDEX, type JobPlan } from '../worker/runJob.js';
+import type { JobPlan } from '../worker/runJob.js';
 import type { Db } from './runsDb.js';
 
 /** What a worker needs to compute any chunk of a run. */
@@ -22,23 +22,6 @@ export class RunWorkStore {
       runId: r.id,
       design: r.design,
       plan: { samples: r.samples, seed: r.seed, plan: r.plan, chunkSize: r.chunk_size, analyses: r.analyses },
-    };
-  }
-
-  /** Stored results as JSON text: the once-per-run task's, and the sample chunks' in chunk order. */
-  async chunkTexts(runId: string): Promise<{ extras: string; chunks: string[] }> {
-    const rows = await this.db
-      .selectFrom('run_chunks')
-      .select(['chunk_index', sql<string>`result::text`.as('text')])
-      .where('run_id', '=', runId)
-      .where('state', '=', 'done')
-      .orderBy('chunk_index')
-      .execute();
-    const extras = rows.find((r) => r.chunk_index === EXTRAS_INDEX);
-    if (!extras) throw new Error(`run ${runId} has no stored extras`);
-    return {
-      extras: extras.text,
-      chunks: rows.filter((r) => r.chunk_index !== EXTRAS_INDEX).map((r) => r.text),
     };
   }
 

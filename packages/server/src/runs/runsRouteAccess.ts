@@ -9,4 +9,5 @@ export const runsRouteAccess: RouteAccessTable = {
   'GET /api/runs/:id/results': 'signedIn',
   'GET /api/runs/:id/export.csv': ['admin', 'engineer', 'production'],
   'GET /api/runs/:id/export.json': ['admin', 'engineer', 'production'],
+  'GET /api/openapi.json': 'public',
 };

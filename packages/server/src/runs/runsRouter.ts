@@ -7,6 +7,7 @@ import { HttpError } from '../http/httpError.js';
 import { uuidParam } from '../http/uuidParam.js';
 import { notifyRuns } from '../worker/runsChannel.js';
 import { launchRun } from './launchRun.js';
+import { buildOpenApi } from './openApi/buildOpenApi.js';
 import { launchRunBody, listRunsQuery, type RunView } from './runSchemas.js';
 import { cancelRun, findResultsText, findRun, findRunDesign, listRuns } from './runsRepo.js';
 import { streamSamplesCsv } from './streamSamplesCsv.js';
@@ -97,6 +98,14 @@ export function createRunsRouter({ db }: AppDeps): Router {
       return;
     }
     res.end();
+  });
+
+  // The API description, built from the same route tables and zod schemas the app enforces, so it
+  // cannot drift; packages/server/openapi.json is a snapshot of it (openApi/writeOpenApi.ts).
+  let openApi: Promise<Record<string, unknown>> | undefined;
+  router.get('/openapi.json', async (_req, res) => {
+    openApi ??= buildOpenApi();
+    res.json(await openApi);
   });
 
   return router;

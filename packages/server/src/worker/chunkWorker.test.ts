@@ -9,9 +9,10 @@ import { fakeJob, type FakeChunk } from './testing/fakeJob.js';
 
 const fakeTask = new URL('./testing/fakeChunkTask.ts', import.meta.url);
 let db: Db;
+let url: string;
 
 beforeAll(async () => {
-  ({ db } = await createTestDb('sigmatail_test_chunkworker'));
+  ({ db, url } = await createTestDb('sigmatail_test_chunkworker'));
 });
 afterAll(async () => {
   await db?.destroy();
@@ -33,7 +34,9 @@ function directResult(samples: number, chunkSize: number, seed: string) {
   const design = fakeJob.prepare({ spinPerSample: 1 });
   const chunks: FakeChunk[] = [];
   for (let k = 0; k < Math.ceil(samples / chunkSize); k++) chunks.push(fakeJob.runChunk(design, plan, k));
-  return fakeJob.merge(design, plan, chunks, fakeJob.runExtras(design, plan));
+  const merger = fakeJob.createMerger(design, plan, fakeJob.runExtras(design, plan));
+  chunks.forEach((c) => merger.add(c));
+  return merger.finish();
 }
 
 describe('ChunkWorker with the fake job', () => {
@@ -41,7 +44,8 @@ describe('ChunkWorker with the fake job', () => {
     const runId = await buildRun(db, { samples: 20_000, chunkSize: 700, seed: 'a' });
     const pool = createChunkPool({ threads: 2, taskUrl: fakeTask });
     const workers = ['w1', 'w2'].map(
-      (owner) => new ChunkWorker({ db, pool, owner, threads: 1, leaseMs: 5_000, pollMs: 50 }),
+      (owner) =>
+        new ChunkWorker({ db, databaseUrl: url, pool, owner, threads: 1, leaseMs: 5_000, pollMs: 50 }),
     );
     workers.forEach((w) => w.start());
     await waitForStatus(runId, ['done']);

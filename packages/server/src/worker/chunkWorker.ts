@@ -6,6 +6,8 @@ import type { ChunkTask, MergeOutput, MergeTask } from './taskHandler.js';
 
 export type ChunkWorkerOptions = {
   db: Db;
+  /** The same database, for pool threads that read chunk results while merging. */
+  databaseUrl: string;
   pool: Piscina;
   /** Unique per process, e.g. host:pid:random; written on the chunks this worker leases. */
   owner: string;
@@ -150,11 +152,16 @@ export class ChunkWorker {
   private async merge(runId: string): Promise<void> {
     try {
       const ctx = await this.context(runId);
-      const { chunks, extras } = await this.store.chunkTexts(runId);
-      const task: MergeTask = { kind: 'merge', runId, design: ctx.design, plan: ctx.plan, chunks, extras };
+      const task: MergeTask = {
+        kind: 'merge',
+        runId,
+        design: ctx.design,
+        plan: ctx.plan,
+        databaseUrl: this.o.databaseUrl,
+      };
       const out = (await this.o.pool.run(task)) as MergeOutput;
       const stored = await this.store.storeResults(runId, this.o.owner, out);
-      this.log(stored ? `run ${runId} done (${chunks.length} chunks)` : `run ${runId}: merge discarded`);
+      this.log(stored ? `run ${runId} done` : `run ${runId}: merge discarded`);
     } catch (err) {
       if (this.stopped) return;
       this.log(`run ${runId} merge failed: ${(err as Error).message}`);

@@ -1,11 +1,13 @@
 import {
-  mergeChunks,
+  createRunAccumulator,
+  designSetup,
   parseDesign,
   runChunk,
   runExtras,
   type ChunkResult,
   type ResolvedDesign,
   type RunResults,
+  withMonteCarloSpread,
 } from '@sigmatail/engine';
 import type { RunJob } from './runJob.js';
 
@@ -23,6 +25,13 @@ export const engineJob: RunJob<ResolvedDesign, ChunkResult, RunResults> = {
   },
   runChunk: (design, plan, chunkIndex) => runChunk(design, plan, chunkIndex),
   runExtras: (design, plan) => runExtras(design, plan),
-  merge: (design, plan, chunks, extras) => mergeChunks(design, plan, chunks, extras as Partial<RunResults>),
+  // The steps of the engine's mergeChunks, fed one chunk at a time instead of from one array.
+  createMerger(design, plan, extras) {
+    const acc = createRunAccumulator(designSetup(design), plan);
+    return {
+      add: (chunk) => acc.add(chunk),
+      finish: () => withMonteCarloSpread(acc.finish(extras as Partial<RunResults>)),
+    };
+  },
   summarize: (results) => ({ validCount: results.validCount, jointYield: results.joint.yield }),
 };

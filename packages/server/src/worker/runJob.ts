@@ -20,8 +20,15 @@ export interface RunJob<Design = unknown, Chunk = unknown, Results = unknown> {
    * chunks (chunk index EXTRAS_INDEX) so it runs in parallel with them instead of inside the merge.
    */
   runExtras(design: Design, plan: JobPlan): unknown;
-  /** Chunks arrive in chunk order; `extras` is what runExtras returned. */
-  merge(design: Design, plan: JobPlan, chunks: Chunk[], extras: unknown): Results;
+  /**
+   * A merge fed the chunk results one at a time in chunk order (memory stays flat whatever the
+   * number of chunks); `extras` is what runExtras returned. Same result as merging all at once.
+   */
+  createMerger(
+    design: Design,
+    plan: JobPlan,
+    extras: unknown,
+  ): { add(chunk: Chunk): void; finish(): Results };
   /** Scalar columns stored beside the results, for listing without reading the whole document. */
   summarize(results: Results): { validCount: number | null; jointYield: number | null };
 }

@@ -1,23 +1,18 @@
+import pg from 'pg';
 import { EXTRAS_INDEX, type JobPlan, type RunJob } from './runJob.js';
 
 export type ChunkTask = { kind: 'chunk'; runId: string; design: unknown; plan: JobPlan; chunkIndex: number };
-/**
- * `chunks` are the stored JSON texts in chunk order, `extras` the once-per-run task's (parsed here,
- * off the worker's main thread).
- */
-export type MergeTask = {
-  kind: 'merge';
-  runId: string;
-  design: unknown;
-  plan: JobPlan;
-  chunks: string[];
-  extras: string;
-};
+/** The merge reads the stored chunk results itself, page by page, so memory stays flat. */
+export type MergeTask = { kind: 'merge'; runId: string; design: unknown; plan: JobPlan; databaseUrl: string };
 export type MergeOutput = { json: string; validCount: number | null; jointYield: number | null };
 
+/** Chunk results read per query while merging. */
+const MERGE_PAGE = 32;
+
 /**
- * The function a pool thread runs. Results travel back as JSON text so that the worker's main
- * thread (which keeps leases alive) never parses or serialises large objects.
+ * The function a pool thread runs. Chunk results travel back as JSON text, and the merge reads
+ * chunk results from the database in this thread, so the worker's main thread (which keeps
+ * leases alive) never parses or holds large objects.
  */
 export function createTaskHandler<D, C, R>(job: RunJob<D, C, R>) {
   // A thread serves many chunks of the same run: parse the design once per run.
@@ -31,24 +26,58 @@ export function createTaskHandler<D, C, R>(job: RunJob<D, C, R>) {
     }
     return d;
   };
-  function handle(task: ChunkTask): string;
-  function handle(task: MergeTask): MergeOutput;
-  function handle(task: ChunkTask | MergeTask): string | MergeOutput {
+  let client: Promise<pg.Client> | undefined;
+  const connect = (url: string) => {
+    client ??= (async () => {
+      const c = new pg.Client({ connectionString: url });
+      c.on('error', () => (client = undefined));
+      await c.connect();
+      return c;
+    })().catch((err: unknown) => {
+      client = undefined;
+      throw err;
+    });
+    return client;
+  };
+
+  async function merge(task: MergeTask): Promise<MergeOutput> {
     const design = designOf(task.runId, task.design);
-    if (task.kind === 'chunk') {
-      const out =
-        task.chunkIndex === EXTRAS_INDEX
-          ? job.runExtras(design, task.plan)
-          : job.runChunk(design, task.plan, task.chunkIndex);
-      return JSON.stringify(out);
+    const db = await connect(task.databaseUrl);
+    const page = (from: number, limit: number) =>
+      db.query<{ chunk_index: number; text: string }>(
+        `select chunk_index, result::text as text from run_chunks
+         where run_id = $1 and state = 'done' and chunk_index >= $2 order by chunk_index limit $3`,
+        [task.runId, from, limit],
+      );
+    const extras = (await page(EXTRAS_INDEX, 1)).rows[0];
+    if (extras?.chunk_index !== EXTRAS_INDEX) throw new Error('the once-per-run results are not stored');
+    const merger = job.createMerger(design, task.plan, JSON.parse(extras.text));
+    const total = Math.ceil(task.plan.samples / task.plan.chunkSize);
+    let next = 0;
+    while (next < total) {
+      const { rows } = await page(next, MERGE_PAGE);
+      if (rows.length === 0 || rows[0]!.chunk_index !== next) break;
+      for (const row of rows) {
+        if (row.chunk_index !== next) break;
+        merger.add(JSON.parse(row.text) as C);
+        next++;
+      }
     }
-    const results = job.merge(
-      design,
-      task.plan,
-      task.chunks.map((c) => JSON.parse(c) as C),
-      JSON.parse(task.extras),
-    );
+    if (next !== total) throw new Error(`chunk ${next} of ${total} is not stored`);
+    const results = merger.finish();
     return { json: JSON.stringify(results), ...job.summarize(results) };
+  }
+
+  function handle(task: ChunkTask): string;
+  function handle(task: MergeTask): Promise<MergeOutput>;
+  function handle(task: ChunkTask | MergeTask): string | Promise<MergeOutput> {
+    if (task.kind === 'merge') return merge(task);
+    const design = designOf(task.runId, task.design);
+    const out =
+      task.chunkIndex === EXTRAS_INDEX
+        ? job.runExtras(design, task.plan)
+        : job.runChunk(design, task.plan, task.chunkIndex);
+    return JSON.stringify(out);
   }
   return handle;
 }

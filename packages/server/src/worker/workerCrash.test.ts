@@ -53,7 +53,9 @@ function directResult(samples: number, chunkSize: number, seed: string, spin: nu
   const design = fakeJob.prepare({ spinPerSample: spin });
   const chunks: FakeChunk[] = [];
   for (let k = 0; k < Math.ceil(samples / chunkSize); k++) chunks.push(fakeJob.runChunk(design, plan, k));
-  return fakeJob.merge(design, plan, chunks, fakeJob.runExtras(design, plan));
+  const merger = fakeJob.createMerger(design, plan, fakeJob.runExtras(design, plan));
+  chunks.forEach((c) => merger.add(c));
+  return merger.finish();
 }
 
 describe('worker processes', () => {

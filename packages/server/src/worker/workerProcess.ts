@@ -72,6 +72,7 @@ export async function runWorkerProcess(o: WorkerProcessOptions): Promise<void> {
   const pool = createChunkPool({ threads, taskUrl: o.taskUrl });
   const worker = new ChunkWorker({
     db,
+    databaseUrl: url,
     pool,
     owner,
     threads,

@@ -9,7 +9,9 @@ const SRC = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 
 /** Every 'METHOD /api/path' → access, from all *RouteAccess.ts tables (as the role matrix test reads them). */
 export async function loadRouteAccess(): Promise<Record<string, RouteAccess>> {
-  const files = (await readdir(SRC, { recursive: true })).filter((f) => /RouteAccess\.ts$/.test(f)).sort();
+  const files = (await readdir(SRC, { recursive: true }))
+    .filter((f) => /RouteAccess\.(ts|js)$/.test(f) && !f.endsWith('.d.ts'))
+    .sort();
   const merged: Record<string, RouteAccess> = {};
   for (const f of files) {
     const mod = (await import(pathToFileURL(path.join(SRC, f)).href)) as Record<string, RouteAccessTable>;
@@ -51,6 +53,7 @@ const summaries: Record<string, string> = {
   'GET /api/runs/:id/export.csv':
     'Raw samples (inputs and metrics) regenerated from the seed, streamed as CSV',
   'GET /api/runs/:id/export.json': 'The run and its results as a download',
+  'GET /api/openapi.json': 'This document',
 };
 
 const json = (schema: z.ZodType) => z.toJSONSchema(schema, { io: 'input', unrepresentable: 'any' });

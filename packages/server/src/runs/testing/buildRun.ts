@@ -1,5 +1,6 @@
 import crypto from 'node:crypto';
 import type { RunStatus } from '@sigmatail/db';
+import { ENGINE_VERSION } from '@sigmatail/engine';
 import { insertRunChunks, queuedTasks } from '../insertRunChunks.js';
 import type { Db } from '../runsDb.js';
 
@@ -51,7 +52,7 @@ export async function buildRun(db: Db, o: Overrides = {}): Promise<string> {
       chunk_size: chunkSize,
       analyses: '{}',
       design: JSON.stringify(o.design ?? { spinPerSample: 1 }),
-      engine_version: 'test',
+      engine_version: ENGINE_VERSION,
       chunk_total: queuedTasks(chunkTotal),
       status: o.status,
     })

@@ -9,7 +9,15 @@ export function startTestWorker(db: Db, url: string, opts: { threads?: number; t
   const threads = opts.threads ?? 2;
   const pool = createChunkPool({ threads, taskUrl: opts.taskUrl });
   const owner = `test:${crypto.randomBytes(3).toString('hex')}`;
-  const worker = new ChunkWorker({ db, pool, owner, threads, leaseMs: 10_000, pollMs: 200 });
+  const worker = new ChunkWorker({
+    db,
+    databaseUrl: url,
+    pool,
+    owner,
+    threads,
+    leaseMs: 10_000,
+    pollMs: 200,
+  });
   const channel = listenRuns(
     url,
     (e) => (e === 'launched' ? worker.wake() : worker.runChanged()),

@@ -40,19 +40,20 @@ export const fakeJob: RunJob<{ spin: number }, FakeChunk, FakeResults> = {
   runExtras(design, plan) {
     return { spin: design.spin, samples: plan.samples };
   },
-  merge(_design, _plan, chunks, extras) {
-    if ((extras as { samples?: number }).samples !== _plan.samples) throw new Error('extras missing');
-    let sum = 0;
-    let count = 0;
-    let min = Infinity;
-    let max = -Infinity;
-    for (const c of chunks) {
-      sum += c.sum;
-      count += c.count;
-      min = Math.min(min, c.min);
-      max = Math.max(max, c.max);
-    }
-    return { chunks: chunks.length, count, sum, min, max };
+  createMerger(_design, plan, extras) {
+    if ((extras as { samples?: number }).samples !== plan.samples) throw new Error('extras missing');
+    const r: FakeResults = { chunks: 0, count: 0, sum: 0, min: Infinity, max: -Infinity };
+    return {
+      add(c) {
+        if (c.chunkIndex !== r.chunks) throw new Error(`chunk ${c.chunkIndex} out of order`);
+        r.chunks++;
+        r.sum += c.sum;
+        r.count += c.count;
+        r.min = Math.min(r.min, c.min);
+        r.max = Math.max(r.max, c.max);
+      },
+      finish: () => r,
+    };
   },
   summarize(results) {
     return { validCount: results.count, jointYield: null };
