@@ -153,6 +153,29 @@ describe('roles admin', () => {
     expect((await adminClient.delete(`/api/users/${admin.id}`)).status).toBe(409);
   });
 
+  it('keeps an admin when two admins demote each other at the same moment', async () => {
+    const a = await buildUser(app.deps.db, { role: 'admin' });
+    const b = await buildUser(app.deps.db, { role: 'admin', workspaceId: a.workspaceId });
+    const [ca, cb] = [await signIn(app, a), await signIn(app, b)];
+    const results = await Promise.all([
+      ca.patch(`/api/users/${b.id}`, { role: 'viewer' }),
+      cb.patch(`/api/users/${a.id}`, { role: 'viewer' }),
+    ]);
+    // Timing decides whether the requests overlap at all, so this checks the invariant rather than
+    // reliably reproducing the race; the workspace row lock in usersRouter is what guarantees it.
+    // The loser is refused: 409 (last admin) or, if it starts after the winner commits, 403 (no longer admin).
+    const statuses = results.map((r) => r.status).sort();
+    expect(statuses[0]).toBe(200);
+    expect([403, 409]).toContain(statuses[1]);
+    const admins = await app.deps.db
+      .selectFrom('memberships')
+      .select('user_id')
+      .where('workspace_id', '=', a.workspaceId)
+      .where('role', '=', 'admin')
+      .execute();
+    expect(admins).toHaveLength(1);
+  });
+
   it('answers 404 for users of other workspaces, unknown or malformed ids', async () => {
     const admin = await buildUser(app.deps.db, { role: 'admin' });
     const stranger = await buildUser(app.deps.db, { role: 'viewer' });

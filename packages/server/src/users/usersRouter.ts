@@ -11,7 +11,12 @@ import { uuidParam } from '../http/uuidParam.js';
 
 const patchBody = z.object({ role: roleField });
 
+/**
+ * The member's current role, after locking the workspace row: role changes in one workspace run
+ * one at a time, so two admins demoting each other at once cannot leave it without an admin.
+ */
 async function memberRole(db: Kysely<Database> | Transaction<Database>, workspaceId: string, userId: string) {
+  await db.selectFrom('workspaces').select('id').where('id', '=', workspaceId).forUpdate().execute();
   const m = await db
     .selectFrom('memberships')
     .select('role')
