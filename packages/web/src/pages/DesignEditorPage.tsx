@@ -49,9 +49,19 @@ export function DesignEditorPage() {
   const rev = d.latestRev;
   return (
     <div className="space-y-4">
-      <PageTitle sub={<span className="num">{rev !== undefined ? `revision ${rev}` : ''}</span>}>
-        {d.name}
-      </PageTitle>
+      <div className="flex flex-wrap items-start justify-between gap-3">
+        <PageTitle
+          sub={
+            <span className="num">
+              revision {rev}
+              {d.archivedAt ? ' · archived' : ''}
+            </span>
+          }
+        >
+          {d.name}
+        </PageTitle>
+        {mayEdit && <ArchiveButton designId={d.id} archived={d.archivedAt !== null} />}
+      </div>
       <SafetyCaution compact />
       <DesignForm
         key={`${d.id}-${rev}`}
