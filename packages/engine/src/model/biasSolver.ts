@@ -1,7 +1,14 @@
 import { korenPointInto, type KorenParams, type TriodePoint } from '../tubes/korenTriode.js';
 
 /** Why a bias point is not usable. 'ok' means a valid point was found. */
-export type BiasStatus = 'ok' | 'supply-too-low' | 'cut-off' | 'grid-current' | 'no-convergence';
+export type BiasStatus =
+  | 'ok'
+  | 'supply-too-low'
+  | 'cut-off'
+  | 'grid-current'
+  | 'no-convergence'
+  /** A resistance or tube multiplier is zero, negative or not a number (a sampled value gone wild). */
+  | 'invalid-parts';
 
 /** The DC circuit for one sample (volts, ohms; multipliers dimensionless). */
 export interface BiasCircuit {
@@ -115,6 +122,7 @@ function evalAt(c: BiasCircuit, ia1: number, ia2: number, bp: BiasPoint): void {
  * solveBiasInto(circuit, bp, false); // 'ok'; bp.ia1 ≈ 1.3e-3 A for the guitar example's 12AX7 pair
  */
 export function solveBiasInto(c: BiasCircuit, bp: BiasPoint, warm: boolean, stepTol = 1e-12): BiasStatus {
+  if (!partsValid(c)) return finish(c, bp, 'invalid-parts', 0, 0, 0);
   const span = c.bPlus - c.tail;
   if (!(span > 0) || !(c.bPlus > 0)) return finish(c, bp, 'supply-too-low', 0, 0, 0);
   const rkk = c.rk + c.rt;
@@ -191,6 +199,7 @@ function innerIa1(c: BiasCircuit, bp: BiasPoint, ia2: number, max1: number): num
  * solveBiasBracketedInto(circuit, createBiasPoint()); // same point as solveBiasInto
  */
 export function solveBiasBracketedInto(c: BiasCircuit, bp: BiasPoint): BiasStatus {
+  if (!partsValid(c)) return finish(c, bp, 'invalid-parts', 0, 0, 0);
   const span = c.bPlus - c.tail;
   if (!(span > 0) || !(c.bPlus > 0)) return finish(c, bp, 'supply-too-low', 0, 0, 0);
   const rkk = c.rk + c.rt;
@@ -214,6 +223,21 @@ function bisect(c: BiasCircuit, bp: BiasPoint, max1: number, max2: number): Bias
   return finish(c, bp, ok ? classify(bp, x1, x2) : 'no-convergence', 999, p1.ia, p2.ia);
 }
 
+/** Resistances positive (Rk may be 0) and finite, multipliers positive; NaN fails every test. */
+function partsValid(c: BiasCircuit): boolean {
+  return (
+    c.rl1 > 0 &&
+    c.rl2 > 0 &&
+    c.rk >= 0 &&
+    c.rt > 0 &&
+    c.perv1 > 0 &&
+    c.perv2 > 0 &&
+    c.muScale1 > 0 &&
+    c.muScale2 > 0 &&
+    c.rl1 + c.rl2 + c.rk + c.rt < Number.POSITIVE_INFINITY
+  );
+}
+
 function classify(bp: BiasPoint, x1: number, x2: number): BiasStatus {
   if (bp.vgk1 > GRID_CURRENT_VGK || bp.vgk2 > GRID_CURRENT_VGK) return 'grid-current';
   if (x1 < CUTOFF_CURRENT || x2 < CUTOFF_CURRENT) return 'cut-off';
@@ -232,7 +256,7 @@ function finish(
 ): BiasStatus {
   bp.status = status;
   bp.iterations = it;
-  if (status === 'supply-too-low') {
+  if (status === 'supply-too-low' || status === 'invalid-parts') {
     bp.ia1 = bp.ia2 = bp.gm1 = bp.gm2 = bp.ga1 = bp.ga2 = Number.NaN;
     return status;
   }

@@ -26,6 +26,7 @@ const DIAGNOSIS: Record<Exclude<BiasStatus, 'ok'>, string> = {
     'a section is cut off (plate current below 1 µA): grid bias too negative for this B+ and these resistors',
   'grid-current':
     'a grid sits positive to its cathode: grid current would flow, which the triode model does not cover; lower the grid drive, raise Rk/Rt or raise B+',
+  'invalid-parts': 'a resistance or tube multiplier is zero, negative or not a number',
   'no-convergence': 'the bias point solver did not converge; check that part values are physically sensible',
 };
 

@@ -118,6 +118,18 @@ describe('createStageKernel', () => {
     inputs[inp('rt')][1] = 1e9; // tail current ≈ 0.15 µA: both sections cut off
     const out = k.metrics.map(() => new Float64Array(3));
     k.evaluate(inputs, 3, out);
+    for (const [id, bad] of [
+      ['rl1', -1e3],
+      ['rk', Number.NaN],
+      ['rg2', 0],
+      ['perv1', -0.1],
+    ] as const) {
+      const row = k.inputs.map((_, i) => Float64Array.of(nom[i]));
+      row[inp(id)][0] = bad;
+      const o = k.metrics.map(() => new Float64Array(1));
+      k.evaluate(row, 1, o);
+      expect(o[col('valid')][0]).toBe(0);
+    }
     expect(out[col('valid')][1]).toBe(0);
     expect(out[col('ia1')][1]).toBeNaN();
     expect(out[col('balanceDb')][1]).toBeNaN();

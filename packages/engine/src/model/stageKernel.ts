@@ -133,6 +133,11 @@ export function createStageKernel(design: ResolvedDesign, options?: { dcPerSampl
       x.mu2 = inputs[10][s];
       x.perv1 = inputs[11][s];
       x.perv2 = inputs[12][s];
+      // Small-signal-only parts must be usable too (Infinity is fine for the loads).
+      if (!(x.rg1 > 0 && x.rg2 > 0 && x.rload1 > 0 && x.rload2 > 0 && x.rsource >= 0)) {
+        writeInvalid(out, s);
+        continue;
+      }
       let gm1: number, gm2: number, rp1: number, rp2: number;
       if (dcPerSample) {
         predictor.predictInto(x);
@@ -145,7 +150,10 @@ export function createStageKernel(design: ResolvedDesign, options?: { dcPerSampl
         rp1 = 1 / bp.ga1;
         rp2 = 1 / bp.ga2;
       } else {
-        if (!nominalValid) {
+        if (
+          !nominalValid ||
+          !(x.rl1 > 0 && x.rl2 > 0 && x.rk >= 0 && x.rt > 0 && x.perv1 > 0 && x.perv2 > 0)
+        ) {
           writeInvalid(out, s);
           continue;
         }
