@@ -104,37 +104,69 @@ function binnedZ(pLow: number, pSpan: number, u: number): number {
 }
 
 /**
- * In place: out[s] = partQuantile(p, u[s]) for s < n. The kind switch sits outside the loops.
+ * In place: out[s] = partQuantile(p, u[s]) for s < n. The kind switch sits outside the loops, and
+ * each loop is its own small function so the optimiser inlines the quantile into it (a
+ * non-inlined call returning a double would allocate per sample).
  */
 export function applyPartSpreadInPlace(p: PartSpread, u: Float64Array, out: Float64Array, n: number): void {
-  const nom = p.nominal;
-  const sg = p.sigma;
   switch (p.kind) {
     case 'normal':
-      for (let s = 0; s < n; s++) out[s] = nom * (1 + sg * normalQuantile(u[s]));
-      return;
+      return normalColumn(p.nominal, p.sigma, 0, 1, u, out, n);
     case 'truncnormal':
-      for (let s = 0; s < n; s++) out[s] = nom * (1 + sg * normalQuantile(p.pLow + u[s] * p.pSpan));
-      return;
+      return normalColumn(p.nominal, p.sigma, p.pLow, p.pSpan, u, out, n);
     case 'lognormal':
-      for (let s = 0; s < n; s++) out[s] = nom * Math.exp(p.scale * normalQuantile(u[s]));
-      return;
+      return lognormalColumn(p.nominal, p.scale, u, out, n);
     case 'uniform':
-      for (let s = 0; s < n; s++) out[s] = nom * (1 + p.scale * (2 * u[s] - 1));
-      return;
+      return uniformColumn(p.nominal, p.scale, u, out, n);
     case 'binned':
-      for (let s = 0; s < n; s++) out[s] = nom * (1 + sg * binnedZ(p.pLow, p.pSpan, u[s]));
-      return;
-    case 'empirical': {
-      const v = p.values;
-      const last = v.length - 1;
-      for (let s = 0; s < n; s++) out[s] = v[Math.min(last, Math.floor(u[s] * v.length))];
-      return;
-    }
+      return binnedColumn(p.nominal, p.sigma, p.pLow, p.pSpan, u, out, n);
+    case 'empirical':
+      return empiricalColumn(p.values, u, out, n);
     case 'fixed':
-      out.fill(nom, 0, n);
-      return;
+      out.fill(p.nominal, 0, n);
   }
+}
+
+function normalColumn(
+  nom: number,
+  sigma: number,
+  pLow: number,
+  pSpan: number,
+  u: Float64Array,
+  out: Float64Array,
+  n: number,
+): void {
+  for (let s = 0; s < n; s++) out[s] = nom * (1 + sigma * normalQuantile(pLow + u[s] * pSpan));
+}
+
+function lognormalColumn(nom: number, scale: number, u: Float64Array, out: Float64Array, n: number): void {
+  for (let s = 0; s < n; s++) out[s] = nom * Math.exp(scale * normalQuantile(u[s]));
+}
+
+function uniformColumn(nom: number, half: number, u: Float64Array, out: Float64Array, n: number): void {
+  for (let s = 0; s < n; s++) out[s] = nom * (1 + half * (2 * u[s] - 1));
+}
+
+function binnedColumn(
+  nom: number,
+  sigma: number,
+  pLow: number,
+  pSpan: number,
+  u: Float64Array,
+  out: Float64Array,
+  n: number,
+): void {
+  for (let s = 0; s < n; s++) {
+    const v = u[s];
+    const z =
+      v < 0.5 ? -normalQuantile(pLow + (1 - 2 * v) * pSpan) : normalQuantile(pLow + (2 * v - 1) * pSpan);
+    out[s] = nom * (1 + sigma * z);
+  }
+}
+
+function empiricalColumn(values: Float64Array, u: Float64Array, out: Float64Array, n: number): void {
+  const len = values.length;
+  for (let s = 0; s < n; s++) out[s] = values[Math.min(len - 1, Math.floor(u[s] * len))];
 }
 
 /**

@@ -95,56 +95,68 @@ export function fillTubeInPlace(
   redraw: Sfc32 | null,
   tally: PairingTally,
 ): void {
-  const { sPerv, sMu, rho, rhoC } = t;
-  // Columns in locals so the loop reads no object properties; a missing column reads as u = ½ (z = 0).
-  const half = new Float64Array(1).fill(0.5);
-  const up1 = u.perv1 ?? half;
-  const up2 = u.perv2 ?? half;
-  const um1 = u.mu1 ?? half;
-  const um2 = u.mu2 ?? half;
-  const sp1 = u.perv1 ? 1 : 0;
-  const sp2 = u.perv2 ? 1 : 0;
-  const sm1 = u.mu1 ? 1 : 0;
-  const sm2 = u.mu2 ? 1 : 0;
   const { perv1: o1, perv2: o2, mu1: o3, mu2: o4 } = out;
-  const paired = redraw !== null && t.pairing !== null;
-  let draws = 0;
-  let failures = 0;
-  for (let s = 0; s < n; s++) {
-    const zp1 = normalQuantile(up1[s * sp1]);
-    const zm1 = normalQuantile(um1[s * sm1]);
-    let p1 = Math.exp(sPerv * zp1);
-    let p2 = Math.exp(sPerv * (rho * zp1 + rhoC * normalQuantile(up2[s * sp2])));
-    let m1 = Math.exp(sMu * zm1);
-    let m2 = Math.exp(sMu * (rho * zm1 + rhoC * normalQuantile(um2[s * sm2])));
-    draws++;
-    if (paired) {
-      let attempts = 1;
-      while (!sectionsPaired(t, p1, p2, m1, m2)) {
-        if (attempts >= MAX_PAIRING_ATTEMPTS) {
-          failures++;
-          break;
-        }
-        attempts++;
-        draws++;
-        const a = normalQuantile(redraw.nextOpen());
-        const e = normalQuantile(redraw.nextOpen());
-        const b = normalQuantile(redraw.nextOpen());
-        const f = normalQuantile(redraw.nextOpen());
-        p1 = Math.exp(sPerv * a);
-        p2 = Math.exp(sPerv * (rho * a + rhoC * e));
-        m1 = Math.exp(sMu * b);
-        m2 = Math.exp(sMu * (rho * b + rhoC * f));
-      }
-    }
-    o1[s] = p1;
-    o2[s] = p2;
-    o3[s] = m1;
-    o4[s] = m2;
-  }
+  sectionPairInPlace(t.sPerv, t.rho, t.rhoC, u.perv1, u.perv2, o1, o2, n);
+  sectionPairInPlace(t.sMu, t.rho, t.rhoC, u.mu1, u.mu2, o3, o4, n);
   tally.samples += n;
-  tally.draws += draws;
-  tally.failures += failures;
+  tally.draws += n;
+  if (redraw === null || t.pairing === null) return;
+  // Second pass in sample order, so the redraw stream is consumed deterministically. Kept out of
+  // the first loop so that loop has no rarely-taken branch (which would deoptimise it).
+  for (let s = 0; s < n; s++) {
+    if (sectionsPaired(t, o1[s], o2[s], o3[s], o4[s])) continue;
+    redrawEnvelope(t, redraw, out, s, tally);
+  }
+}
+
+/** In place: one quantity's section multipliers from two uniform columns (null = no spread). */
+function sectionPairInPlace(
+  sd: number,
+  rho: number,
+  rhoC: number,
+  u1: Float64Array | null,
+  u2: Float64Array | null,
+  o1: Float64Array,
+  o2: Float64Array,
+  n: number,
+): void {
+  if (u1 === null || u2 === null) {
+    o1.fill(1, 0, n);
+    o2.fill(1, 0, n);
+    return;
+  }
+  // Three passes with one quantile call site each, so each is inlined (see normalQuantile).
+  for (let s = 0; s < n; s++) o1[s] = normalQuantile(u1[s]);
+  for (let s = 0; s < n; s++) o2[s] = Math.exp(sd * (rho * o1[s] + rhoC * normalQuantile(u2[s])));
+  for (let s = 0; s < n; s++) o1[s] = Math.exp(sd * o1[s]);
+}
+
+/** Draws envelope s again (four uniforms per attempt) until it passes the pairing rule. */
+function redrawEnvelope(
+  t: TubeSpreadModel,
+  redraw: Sfc32,
+  out: { perv1: Float64Array; perv2: Float64Array; mu1: Float64Array; mu2: Float64Array },
+  s: number,
+  tally: PairingTally,
+): void {
+  const { sPerv, sMu, rho, rhoC } = t;
+  for (let attempt = 1; attempt < MAX_PAIRING_ATTEMPTS; attempt++) {
+    tally.draws++;
+    const a = normalQuantile(redraw.nextOpen());
+    const e = normalQuantile(redraw.nextOpen());
+    const b = normalQuantile(redraw.nextOpen());
+    const f = normalQuantile(redraw.nextOpen());
+    const p1 = Math.exp(sPerv * a);
+    const p2 = Math.exp(sPerv * (rho * a + rhoC * e));
+    const m1 = Math.exp(sMu * b);
+    const m2 = Math.exp(sMu * (rho * b + rhoC * f));
+    out.perv1[s] = p1;
+    out.perv2[s] = p2;
+    out.mu1[s] = m1;
+    out.mu2[s] = m2;
+    if (sectionsPaired(t, p1, p2, m1, m2)) return;
+  }
+  tally.failures++;
 }
 
 /** Extreme multipliers used for worst-case corners and the tornado chart: exp(±3·s) (±3σ). */

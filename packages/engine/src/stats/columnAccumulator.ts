@@ -1,0 +1,100 @@
+import type { HistogramGrid } from './histogramGrid.js';
+import type { MetricChunk } from './metricChunk.js';
+
+/**
+ * One metric's running statistics within a chunk, fed block by block (mutable). Sums are shifted
+ * by the first finite value K: M2 = Σ(x−K)² − (Σ(x−K))²/n. With K a sample of the same metric,
+ * x − K is of the order of the spread, so the subtraction loses almost nothing (unlike raw sums
+ * of squares). Feeding a column in blocks gives the same bits as feeding it whole.
+ */
+export type ColumnAccumulator = {
+  readonly grid: HistogramGrid;
+  count: number;
+  shift: number;
+  s1: number;
+  s2: number;
+  min: number;
+  max: number;
+  under: number;
+  over: number;
+  /** Fine-grid counts (a chunk holds at most 2^20 samples, so 32 bits suffice). */
+  readonly bins: Uint32Array;
+};
+
+/** Empty accumulator on a grid. */
+export function createColumnAccumulator(grid: HistogramGrid): ColumnAccumulator {
+  return {
+    grid,
+    count: 0,
+    shift: NaN,
+    s1: 0,
+    s2: 0,
+    min: Infinity,
+    max: -Infinity,
+    under: 0,
+    over: 0,
+    bins: new Uint32Array(grid.bins),
+  };
+}
+
+/** In place: empties the accumulator for the next chunk (keeps its bins array). */
+export function resetColumnAccumulator(a: ColumnAccumulator): void {
+  a.count = 0;
+  a.shift = NaN;
+  a.s1 = 0;
+  a.s2 = 0;
+  a.min = Infinity;
+  a.max = -Infinity;
+  a.under = 0;
+  a.over = 0;
+  a.bins.fill(0);
+}
+
+/**
+ * In place: adds col[0..n) to the accumulator. Non-finite values (no bias point) are skipped.
+ *
+ * @example accumulateColumnInPlace(acc, out[m], 4096)
+ */
+export function accumulateColumnInPlace(a: ColumnAccumulator, col: Float64Array, n: number): void {
+  let { count, shift, s1, s2, min, max, under, over } = a;
+  const bins = a.bins;
+  const lo = a.grid.lo;
+  const inv = 1 / a.grid.width;
+  const nb = a.grid.bins;
+  for (let s = 0; s < n; s++) {
+    const x = col[s];
+    // x − x is 0 exactly for finite x, NaN for NaN and ±Infinity.
+    if (x - x !== 0) continue;
+    if (count === 0) shift = x;
+    count++;
+    const dx = x - shift;
+    s1 += dx;
+    s2 += dx * dx;
+    if (x < min) min = x;
+    if (x > max) max = x;
+    // Position in bins; truncation equals floor once b >= 0.
+    const b = (x - lo) * inv;
+    if (b < 0) under++;
+    else if (b >= nb) over++;
+    else bins[b | 0]++;
+  }
+  Object.assign(a, { count, shift, s1, s2, min, max, under, over });
+}
+
+/** The chunk statistics as plain JSON (see MetricChunk). */
+export function columnAccumulatorResult(a: ColumnAccumulator): MetricChunk {
+  const { count, under, over } = a;
+  if (count === 0)
+    return { count, mean: null, m2: 0, min: null, max: null, under, over, binOffset: 0, bins: [] };
+  const mean = a.shift + a.s1 / count;
+  const m2 = Math.max(0, a.s2 - (a.s1 * a.s1) / count);
+  const nb = a.grid.bins;
+  let first = 0;
+  while (first < nb && a.bins[first] === 0) first++;
+  let last = nb - 1;
+  while (last >= first && a.bins[last] === 0) last--;
+  // A plain loop: Array.from over a typed array steps an iterator per element.
+  const bins: number[] = new Array<number>(Math.max(0, last - first + 1));
+  for (let i = first; i <= last; i++) bins[i - first] = a.bins[i];
+  return { count, mean, m2, min: a.min, max: a.max, under, over, binOffset: last >= first ? first : 0, bins };
+}
