@@ -1,4 +1,4 @@
-import { parseDesign, type RunPlan } from '@sigmatail/engine';
+import { ENGINE_VERSION, parseDesign, type RunPlan } from '@sigmatail/engine';
 import { Router, type Request } from 'express';
 import type { AppDeps } from '../appDeps.js';
 import { recordAudit } from '../audit/recordAudit.js';
@@ -76,6 +76,13 @@ export function createRunsRouter({ db }: AppDeps): Router {
 
   router.get('/runs/:id/export.csv', requireRole(...LAUNCHERS), async (req, res) => {
     const run = await loadDone(req);
+    // Raw samples are regenerated, so only the engine that computed the run can reproduce them.
+    if (run.engineVersion !== ENGINE_VERSION) {
+      throw new HttpError(
+        409,
+        `run was computed by engine ${run.engineVersion}; this server has ${ENGINE_VERSION}`,
+      );
+    }
     const parsed = parseDesign(await findRunDesign(db, run.id));
     if (!parsed.ok)
       throw new HttpError(422, 'the run’s design snapshot no longer parses; export is not possible');
