@@ -47,6 +47,21 @@ describe('password reset by e-mail, end to end through the SMTP fake', () => {
     await expect(readMail(app.deps.db, ghost, 300)).rejects.toThrow(/no mail/);
   });
 
+  it('refuses an expired link', async () => {
+    const u = await buildUser(app.deps.db);
+    await app.client().post('/api/auth/forgot', { email: u.email });
+    const token = linkToken((await readMail(app.deps.db, u.email)).text, 'reset');
+    await app.deps.db
+      .updateTable('password_resets')
+      .set({ expires_at: new Date(Date.now() - 1000) })
+      .where('user_id', '=', u.id)
+      .execute();
+    const res = await app.client().post('/api/auth/reset', { token, password: 'long-enough-pw' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.field).toBe('token');
+    await signIn(app, u); // the old password still works
+  });
+
   it('validates the new password and the token, naming the field', async () => {
     const short = await app.client().post('/api/auth/reset', { token: 'x'.repeat(43), password: 'short' });
     expect(short.status).toBe(400);

@@ -125,6 +125,27 @@ describe('invite by e-mail, end to end through the SMTP fake', () => {
   });
 });
 
+describe('an expired invite', () => {
+  it('is neither shown nor accepted', async () => {
+    const admin = await buildUser(app.deps.db, { role: 'admin' });
+    const adminClient = await signIn(app, admin);
+    const email = newEmail();
+    const { body } = await adminClient.post('/api/invites', { email, role: 'viewer' });
+    const token = linkToken((await readMail(app.deps.db, email)).text, 'invite');
+    await app.deps.db
+      .updateTable('invites')
+      .set({ expires_at: new Date(Date.now() - 1000) })
+      .where('id', '=', body.invite.id)
+      .execute();
+    expect((await app.client().get(`/api/invites/${token}`)).status).toBe(404);
+    const accept = await app
+      .client()
+      .post('/api/auth/accept-invite', { token, name: 'Late', password: 'long-enough-pw' });
+    expect(accept.status).toBe(400);
+    expect(accept.body.error.field).toBe('token');
+  });
+});
+
 describe('revoking an invite', () => {
   it('kills the mailed link and drops it from the pending list', async () => {
     const admin = await buildUser(app.deps.db, { role: 'admin' });
