@@ -90,6 +90,19 @@ export function createStageKernel(design: ResolvedDesign, options?: { dcPerSampl
 
   function evaluate(inputs: readonly Float64Array[], n: number, out: readonly Float64Array[]): void {
     const bp = ctx.bp;
+    const i_rl1 = inputs[0];
+    const i_rl2 = inputs[1];
+    const i_rk = inputs[2];
+    const i_rt = inputs[3];
+    const i_rg1 = inputs[4];
+    const i_rg2 = inputs[5];
+    const i_rload1 = inputs[6];
+    const i_rload2 = inputs[7];
+    const i_rsource = inputs[8];
+    const i_mu1 = inputs[9];
+    const i_mu2 = inputs[10];
+    const i_perv1 = inputs[11];
+    const i_perv2 = inputs[12];
     const o_a11 = out[col('a11')];
     const o_a12 = out[col('a12')];
     const o_a21 = out[col('a21')];
@@ -120,19 +133,19 @@ export function createStageKernel(design: ResolvedDesign, options?: { dcPerSampl
     const o_mu2 = out[col('mu2')];
     const o_valid = out[col('valid')];
     for (let s = 0; s < n; s++) {
-      x.rl1 = inputs[0][s];
-      x.rl2 = inputs[1][s];
-      x.rk = inputs[2][s];
-      x.rt = inputs[3][s];
-      x.rg1 = inputs[4][s];
-      x.rg2 = inputs[5][s];
-      x.rload1 = inputs[6][s];
-      x.rload2 = inputs[7][s];
-      x.rsource = inputs[8][s];
-      x.mu1 = inputs[9][s];
-      x.mu2 = inputs[10][s];
-      x.perv1 = inputs[11][s];
-      x.perv2 = inputs[12][s];
+      x.rl1 = i_rl1[s];
+      x.rl2 = i_rl2[s];
+      x.rk = i_rk[s];
+      x.rt = i_rt[s];
+      x.rg1 = i_rg1[s];
+      x.rg2 = i_rg2[s];
+      x.rload1 = i_rload1[s];
+      x.rload2 = i_rload2[s];
+      x.rsource = i_rsource[s];
+      x.mu1 = i_mu1[s];
+      x.mu2 = i_mu2[s];
+      x.perv1 = i_perv1[s];
+      x.perv2 = i_perv2[s];
       // Small-signal-only parts must be usable too (Infinity is fine for the loads).
       if (!(x.rg1 > 0 && x.rg2 > 0 && x.rload1 > 0 && x.rload2 > 0 && x.rsource >= 0)) {
         writeInvalid(out, s);
