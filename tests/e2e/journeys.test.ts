@@ -18,6 +18,9 @@ describe('admin invites a user', () => {
     await anon.goto(`${h.baseUrl}/signin`);
     await anon.getByRole('button', { name: 'Sign in' }).waitFor();
     await screenshot(anon, '01-sign-in');
+    await anon.getByRole('link', { name: 'Forgot your password?' }).click();
+    await anon.getByRole('button', { name: 'Send reset link' }).waitFor();
+    await screenshot(anon, '01a-forgot');
     await anon.close();
 
     const page = await signIn(h.browser, h.baseUrl, 'admin@fenwick.example');
@@ -41,6 +44,10 @@ describe('admin invites a user', () => {
     const text = (await body.textContent()) ?? '';
     const link = /https?:\/\/\S+\/invite\/[A-Za-z0-9_-]+/.exec(text)?.[0];
     expect(link, `invite link in: ${text}`).toBeTruthy();
+
+    await page.getByRole('tab', { name: 'Workspace' }).click();
+    await page.getByLabel('Workspace name').waitFor();
+    await screenshot(page, '04a-admin-workspace');
 
     await page.getByRole('tab', { name: 'Audit' }).click();
     await page.getByRole('cell', { name: 'invite.create' }).first().waitFor();
@@ -77,6 +84,9 @@ describe('engineer designs, runs and compares', () => {
     await page.getByRole('button', { name: 'Create design' }).click();
     await page.waitForURL(/\/designs\/[0-9a-f-]{36}$/);
     const designUrl = page.url();
+    await page.getByRole('heading', { name: 'E2E splitter' }).waitFor();
+    await page.getByRole('link', { name: 'rev 1' }).waitFor();
+    await screenshot(page, '07a-design-saved');
 
     const launch = async (seed: string, plan: string) => {
       await page.getByLabel('Samples N').fill('4000');
@@ -108,6 +118,9 @@ describe('engineer designs, runs and compares', () => {
     await page.getByRole('link', { name: 'E2E splitter' }).click();
     const runB = await launch('e2e-b', 'lhs');
     const ids = [runA, runB].map((u) => u.split('/').pop()).join(',');
+    await page.getByRole('link', { name: 'Runs', exact: true }).click();
+    await page.getByRole('link', { name: runB.split('/').pop()!.slice(0, 8) }).waitFor();
+    await screenshot(page, '09a-runs-list');
     await page.goto(`${h.baseUrl}/compare?runs=${ids}`);
     await page.getByTestId('compare-p-1').waitFor({ timeout: 30_000 });
     expect(await page.getByTestId('compare-p-1').textContent()).toMatch(/^(< 0\.0001|\d\.\d{4})$/);

@@ -56,22 +56,8 @@ export function DesignForm({
       <div className="grid gap-5 xl:grid-cols-[minmax(0,3fr)_minmax(340px,2fr)]">
         <form onSubmit={submit} noValidate aria-label="Design editor" className="min-w-0">
           {banner}
-          <fieldset disabled={readOnly} className="space-y-4">
-            <Panel title="Stage">
-              <StageFields />
-            </Panel>
-            <Panel title="Parts">
-              <PartsTable readOnly={readOnly} />
-            </Panel>
-            <Panel title="Tube">
-              <TubeFields />
-            </Panel>
-            <Panel title="Specs">
-              <SpecsTable readOnly={readOnly} />
-            </Panel>
-          </fieldset>
           {!readOnly && onSave && (
-            <div className="no-print sticky bottom-0 mt-4 flex flex-wrap items-center gap-3 rounded-lg border border-rule bg-sheet/95 p-3 backdrop-blur">
+            <div className="no-print sticky top-0 z-10 mb-4 flex flex-wrap items-center gap-3 rounded-lg border border-rule bg-sheet/95 p-3 backdrop-blur">
               <label htmlFor="rev-message" className="sr-only">
                 Revision note
               </label>
@@ -93,6 +79,20 @@ export function DesignForm({
               )}
             </div>
           )}
+          <fieldset disabled={readOnly} className="space-y-4">
+            <Panel title="Stage">
+              <StageFields />
+            </Panel>
+            <Panel title="Parts">
+              <PartsTable readOnly={readOnly} />
+            </Panel>
+            <Panel title="Tube">
+              <TubeFields />
+            </Panel>
+            <Panel title="Specs">
+              <SpecsTable readOnly={readOnly} />
+            </Panel>
+          </fieldset>
           {saveError !== null && (
             <div className="mt-3">
               <ErrorNote error={saveError} />

@@ -133,6 +133,9 @@ export function StageSchematic({ design, report }: { design: ResolvedDesign; rep
       <text x={x2 + 92} y={110} fontSize={11} fill={WIRE}>
         out 2
       </text>
+      {p.rload1 && <Tag x={x1 - 84} y={96} anchor="end" text={`load ${v(p.rload1.value)}`} />}
+      {p.rload2 && <Tag x={x2 + 92} y={96} text={`load ${v(p.rload2.value)}`} />}
+      {p.rsource && <Tag x={66} y={146} anchor="end" text={`source ${v(p.rsource.value)}`} />}
       {ok && m && (
         <>
           <Tag x={x1 - 84} y={134} anchor="end" text={`Va1 ${formatSi(m.va1, 'V')}`} />

@@ -33,8 +33,8 @@ export function DesignEditorPage() {
           initial={defaultDesign()}
           readOnly={false}
           saveLabel="Create design"
-          onSave={async (doc) => {
-            const { design } = await api.designs.create(doc);
+          onSave={async (doc, message) => {
+            const { design } = await api.designs.create(doc, message || undefined);
             await qc.invalidateQueries({ queryKey: designQueries.all });
             navigate(`/designs/${design.id}`, { replace: true });
           }}
