@@ -58,6 +58,11 @@ describe('parseDesign', () => {
       'parts.rk.spread.values',
     ],
     [
+      'binned band wider than the tolerance',
+      (d: Doc) => (d.parts.rk.spread = { kind: 'binned', inner: 5 }),
+      'parts.rk.spread.inner',
+    ],
+    [
       'correlation above 1',
       (d: Doc) => (d.tube.spread.sectionCorrelation = 1.5),
       'tube.spread.sectionCorrelation',

@@ -35,11 +35,16 @@ const partValue = z.union([
  * @example
  * partSchema.parse({ value: '4k7', tolerance: 1, spread: { kind: 'normal' } });
  */
-export const partSchema = z.object({
-  value: partValue,
-  tolerance: finite().min(0).lt(100, 'must be below 100 %'),
-  spread: spreadSchema,
-});
+export const partSchema = z
+  .object({
+    value: partValue,
+    tolerance: finite().min(0).lt(100, 'must be below 100 %'),
+    spread: spreadSchema,
+  })
+  .refine((p) => p.spread.kind !== 'binned' || p.spread.inner < p.tolerance, {
+    message: 'the sorted-out band must be narrower than the tolerance',
+    path: ['spread', 'inner'],
+  });
 
 /**
  * How the two sections of one envelope vary (percent, 1σ) and how they are paired.
