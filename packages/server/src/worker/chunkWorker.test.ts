@@ -117,4 +117,32 @@ describe('ChunkWorker with the fake job', () => {
     expect(run.status).toBe('failed');
     expect(run.error).toMatch(/failed 2 times/);
   });
+
+  it('retries a chunk that throws, then fails the run naming the chunk and the error', async () => {
+    const runId = await buildRun(db, { samples: 5_000, chunkSize: 1_000, design: { failChunk: 3 } });
+    const pool = createChunkPool({ threads: 1, taskUrl: fakeTask });
+    const lines: string[] = [];
+    const worker = new ChunkWorker({
+      db,
+      databaseUrl: url,
+      pool,
+      owner: 'thrower',
+      threads: 1,
+      leaseMs: 5_000,
+      pollMs: 50,
+      log: (l) => lines.push(l),
+    });
+    worker.start();
+    await waitForStatus(runId, ['failed']);
+    await worker.stop();
+    await pool.destroy();
+    const run = await db
+      .selectFrom('runs')
+      .select(['error', 'finished_at'])
+      .where('id', '=', runId)
+      .executeTakeFirstOrThrow();
+    expect(run.error).toBe('chunk 3 failed: chunk 3 cannot be computed');
+    expect(run.finished_at).not.toBeNull();
+    expect(lines.filter((l) => l.includes('chunk 3 attempt'))).toHaveLength(3);
+  });
 });

@@ -117,30 +117,40 @@ export class ChunkWorker {
 
   private async runOne(chunk: ClaimedChunk, signal: AbortSignal): Promise<void> {
     try {
-      const ctx = await this.context(chunk.runId);
-      const task: ChunkTask = {
-        kind: 'chunk',
-        runId: chunk.runId,
-        design: ctx.design,
-        plan: ctx.plan,
-        chunkIndex: chunk.chunkIndex,
-      };
-      const json = (await this.o.pool.run(task, { signal })) as string;
+      let json: string;
+      try {
+        const ctx = await this.context(chunk.runId);
+        const task: ChunkTask = {
+          kind: 'chunk',
+          runId: chunk.runId,
+          design: ctx.design,
+          plan: ctx.plan,
+          chunkIndex: chunk.chunkIndex,
+        };
+        json = (await this.o.pool.run(task, { signal })) as string;
+      } catch (err) {
+        if (!signal.aborted && !this.stopped) await this.chunkFailed(chunk, (err as Error).message);
+        return;
+      }
       if (signal.aborted) return;
       const d = await this.queue.deliver(chunk.runId, chunk.chunkIndex, json);
       if (d.kind === 'stored' && d.mergeNow) this.startMerge(chunk.runId);
     } catch (err) {
-      if (signal.aborted || this.stopped) return;
-      const message = (err as Error).message;
-      this.log(`run ${chunk.runId} chunk ${chunk.chunkIndex} attempt ${chunk.attempts}: ${message}`);
-      if (chunk.attempts >= (this.o.maxAttempts ?? 3)) {
-        await this.store.fail(chunk.runId, `chunk ${chunk.chunkIndex} failed: ${message}`).catch(() => false);
-      } else {
-        await this.queue.release(chunk.runId, chunk.chunkIndex, true).catch(() => undefined);
-      }
+      // The database failed us, not the chunk: its lease expires and it is computed again.
+      this.log(`run ${chunk.runId} chunk ${chunk.chunkIndex}: result not stored: ${(err as Error).message}`);
     } finally {
       this.inFlight.delete(key(chunk));
       this.wake();
+    }
+  }
+
+  /** A chunk that threw is tried again (by any worker) until its attempts run out; then the run fails. */
+  private async chunkFailed(chunk: ClaimedChunk, message: string): Promise<void> {
+    this.log(`run ${chunk.runId} chunk ${chunk.chunkIndex} attempt ${chunk.attempts}: ${message}`);
+    if (chunk.attempts >= (this.o.maxAttempts ?? 3)) {
+      await this.store.fail(chunk.runId, `chunk ${chunk.chunkIndex} failed: ${message}`);
+    } else {
+      await this.queue.release(chunk.runId, chunk.chunkIndex, true);
     }
   }
 

@@ -34,16 +34,21 @@ export function listenRuns(
       const [event = '', runId = ''] = (m.payload ?? '').split(':');
       onEvent(event, runId);
     });
-    c.on('error', (err) => {
-      log(`runs channel: ${err.message}`);
+    let lost = false;
+    const reconnect = (why: string) => {
+      if (lost || closed) return;
+      lost = true;
+      log(`runs channel: ${why}; reconnecting`);
       void c.end().catch(() => undefined);
-      if (!closed) retry = setTimeout(() => void connect().catch(() => undefined), 1000);
-    });
+      retry = setTimeout(() => void connect(), 1000);
+    };
+    c.on('error', (err) => reconnect(err.message));
+    c.on('end', () => reconnect('connection ended'));
     try {
       await c.connect();
       await c.query(`listen ${RUNS_CHANNEL}`);
     } catch (err) {
-      c.emit('error', err);
+      reconnect((err as Error).message);
     }
   };
   void connect();

@@ -3,7 +3,7 @@ import type { RunJob } from '../runJob.js';
 /**
  * A trivial deterministic run body for queue and crash tests: chunk k hashes (seed, sample index)
  * for each of its samples, so its result depends only on (seed, k) and every sample costs real
- * CPU time. `document.spinPerSample` makes chunks slower.
+ * CPU time. `document.spinPerSample` makes chunks slower; `document.failChunk` makes one chunk throw.
  */
 export type FakeChunk = { chunkIndex: number; count: number; sum: number; min: number; max: number };
 export type FakeResults = { chunks: number; count: number; sum: number; min: number; max: number };
@@ -14,12 +14,13 @@ function hash32(x: number): number {
   return (x ^ (x >>> 16)) >>> 0;
 }
 
-export const fakeJob: RunJob<{ spin: number }, FakeChunk, FakeResults> = {
+export const fakeJob: RunJob<{ spin: number; failChunk: number }, FakeChunk, FakeResults> = {
   prepare(document) {
-    const spin = (document as { spinPerSample?: number } | null)?.spinPerSample ?? 1;
-    return { spin };
+    const d = document as { spinPerSample?: number; failChunk?: number } | null;
+    return { spin: d?.spinPerSample ?? 1, failChunk: d?.failChunk ?? -2 };
   },
   runChunk(design, plan, chunkIndex) {
+    if (chunkIndex === design.failChunk) throw new RangeError(`chunk ${chunkIndex} cannot be computed`);
     let seedHash = 0;
     for (const ch of plan.seed) seedHash = hash32(seedHash ^ ch.charCodeAt(0));
     const start = chunkIndex * plan.chunkSize;
