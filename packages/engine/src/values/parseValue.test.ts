@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { parseCapacitance, parseResistance, parseValue } from './parseValue.js';
 import { formatEngineering, formatRkm } from './formatValue.js';
+import { E_SERIES } from './eSeries.js';
 import { toleranceFromLetter, letterForTolerance, TOLERANCE_LETTERS } from './toleranceLetters.js';
 
 describe('parseValue', () => {
@@ -60,6 +61,16 @@ describe('formatRkm', () => {
   it.each(['4n7', '470n', '2u2', '100p', '1u', '10m'])('round-trips capacitance %s (IEC 60062)', (code) => {
     expect(formatRkm(parseCapacitance(code), 'capacitance')).toBe(code);
   });
+  it('round-trips every E192 value from 0.1 Ω to 10 GΩ through its RKM code (IEC 60062, IEC 60063)', () => {
+    for (let exp = -1; exp <= 9; exp++)
+      for (const m of E_SERIES.E192) {
+        const ohms = Number((m * 10 ** exp).toPrecision(3));
+        const code = formatRkm(ohms, 'resistance');
+        expect(code).toMatch(/^\d*[RkMG]\d*$/);
+        expect(parseResistance(code)).toBe(ohms);
+      }
+  });
+
   it('formats engineering notation', () => {
     expect(formatEngineering(4700, 'resistance')).toBe('4.7 kΩ');
     expect(formatEngineering(470e-9, 'capacitance')).toBe('470 nF');
