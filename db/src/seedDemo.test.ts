@@ -3,6 +3,7 @@ import { createStageKernel, METRICS, parseDesign } from '@sigmatail/engine';
 import { afterAll, describe, expect, it } from 'vitest';
 import { createDb } from './createDb.js';
 import { DEMO_DESIGNS } from './demoDesigns.js';
+import { engineExampleDesigns } from './engineExampleDesigns.js';
 import { DEMO_PASSWORD, DEMO_USERS, DEMO_WORKSPACE_NAME } from './demoWorkspace.js';
 import { seedDemo } from './seedDemo.js';
 import { TEST_DATABASE_URL } from './testing/testDatabaseUrl.js';
@@ -61,7 +62,10 @@ describe('seedDemo', () => {
       .select(['name', 'latest_rev'])
       .where('workspace_id', '=', workspaceId)
       .execute();
-    for (const d of DEMO_DESIGNS)
+    const examples = engineExampleDesigns();
+    expect(examples.length).toBeGreaterThan(0);
+    for (const d of [...DEMO_DESIGNS, ...examples]) {
       expect(designs.filter((x) => x.name === d.name)).toEqual([{ name: d.name, latest_rev: 1 }]);
+    }
   });
 });

@@ -1,6 +1,7 @@
 import bcrypt from 'bcryptjs';
 import { sql, type Kysely } from 'kysely';
 import { DEMO_DESIGNS } from './demoDesigns.js';
+import { engineExampleDesigns } from './engineExampleDesigns.js';
 import {
   DEFAULT_WORKSPACE_SETTINGS,
   DEMO_PASSWORD,
@@ -10,7 +11,8 @@ import {
 import type { Database } from './schema.js';
 
 /**
- * Creates the demo workshop, its four users (one per role) and its demo designs. Idempotent: rows
+ * Creates the demo workshop, its four users (one per role) and its demo designs (our own plus the
+ * engine's valid examples). Idempotent: rows
  * that exist already (matched by workspace name, email, design name) are left as they are, so it
  * is safe to run on every start and never overwrites a password or design someone changed.
  */
@@ -44,7 +46,7 @@ export async function seedDemo(db: Kysely<Database>): Promise<{ workspaceId: str
       userIds.push(row.id);
     }
     const author = userIds[1] ?? userIds[0];
-    for (const doc of DEMO_DESIGNS) {
+    for (const doc of [...DEMO_DESIGNS, ...engineExampleDesigns()]) {
       const name = String(doc.name);
       const found = await tx
         .selectFrom('designs')
