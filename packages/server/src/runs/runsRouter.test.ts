@@ -154,6 +154,8 @@ describe('runs API', () => {
     const list = await viewer.get(`/api/runs?designId=${designId}&status=cancelled`);
     expect(list.status).toBe(200);
     expect(list.body.runs.map((r: { id: string }) => r.id)).toEqual([id]);
+    const unfiltered = await viewer.get(`/api/runs?designId=${designId}&status=&limit=`);
+    expect(unfiltered.body.runs.length).toBeGreaterThan(1);
     const limited = await viewer.get(`/api/runs?designId=${designId}&limit=1`);
     expect(limited.body.runs).toHaveLength(1);
     expect((await viewer.get('/api/runs?status=finished')).body.error.field).toBe('status');

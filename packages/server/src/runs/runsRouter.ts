@@ -43,7 +43,9 @@ export function createRunsRouter({ db }: AppDeps): Router {
   });
 
   router.get('/runs', requireAuth, async (req, res) => {
-    res.json({ runs: await listRuns(db, req.user!.workspaceId, listRunsQuery.parse(req.query)) });
+    // An empty filter (?status=) means no filter, as HTML forms send it.
+    const query = Object.fromEntries(Object.entries(req.query).filter(([, v]) => v !== ''));
+    res.json({ runs: await listRuns(db, req.user!.workspaceId, listRunsQuery.parse(query)) });
   });
 
   router.get('/runs/:id', requireAuth, async (req, res) => {
