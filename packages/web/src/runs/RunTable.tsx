@@ -1,6 +1,6 @@
 import { Link } from 'react-router';
 import type { RunView } from '../api/types.js';
-import { formatCount } from '../format/formatSi.js';
+import { formatCount, formatYield } from '../format/formatSi.js';
 import { formatWhen } from '../format/formatWhen.js';
 import { RunStatusBadge } from './RunStatusBadge.js';
 
@@ -27,6 +27,7 @@ export function RunTable({
             {showDesign && <th className="font-medium">Design</th>}
             <th className="font-medium">Status</th>
             <th className="text-right font-medium">N</th>
+            <th className="text-right font-medium">Joint yield</th>
             <th className="pl-3 font-medium">Plan</th>
             <th className="font-medium">Seed</th>
             <th className="font-medium">Started</th>
@@ -60,6 +61,11 @@ export function RunTable({
                 <RunStatusBadge status={r.status} />
               </td>
               <td className="num text-right">{formatCount(r.samples)}</td>
+              <td className="num text-right">
+                {r.summary?.jointYield !== null && r.summary?.jointYield !== undefined
+                  ? formatYield(r.summary.jointYield)
+                  : '—'}
+              </td>
               <td className="pl-3">{r.plan}</td>
               <td className="num max-w-32 truncate text-xs">{r.seed}</td>
               <td className="text-xs text-dim">{formatWhen(r.createdAt)}</td>
