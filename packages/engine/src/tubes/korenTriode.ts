@@ -33,7 +33,10 @@ export interface TriodePoint {
  * The published SPICE listing writes the same thing as (pwr(E1,ex) + pwrs(E1,ex))/kg1 (from
  * memory), so the published parameter sets were fitted with the factor 2 and the catalog assumes
  * it. Checked against the datasheet typical points (tubeCatalog.test.ts): the 12AX7 set gives
- * 0.95 mA at 250 V / −2 V with the factor (datasheet 1.2 mA) and 0.48 mA without it.
+ * 0.95 mA at 250 V / −2 V with the factor (datasheet 1.2 mA) and 0.48 mA without it, and it
+ * reproduces a published worked example (1.07 mA, 1880 µS at 221 V / −1.61 V) only with it.
+ * Some circulated listings divide by 2·kg1 instead; with those the published sets would give
+ * half the datasheet currents, so that form is not the one they were fitted with.
  * `scale` multiplies the current (perveance spread); `muScale` multiplies mu.
  * No grid current is modelled; callers flag Vgk > 0.
  *
