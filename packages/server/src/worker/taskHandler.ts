@@ -15,14 +15,16 @@ const MERGE_PAGE = 32;
  * leases alive) never parses or holds large objects.
  */
 export function createTaskHandler<D, C, R>(job: RunJob<D, C, R>) {
-  // A thread serves many chunks of the same run: parse the design once per run.
+  // A thread serves many chunks of one run, and many runs of one design: prepare each design
+  // document once (keyed by its text), so the engine's per-design setup is reused across runs.
   const prepared = new Map<string, D>();
-  const designOf = (runId: string, document: unknown): D => {
-    let d = prepared.get(runId);
+  const designOf = (_runId: string, document: unknown): D => {
+    const key = JSON.stringify(document);
+    let d = prepared.get(key);
     if (d === undefined) {
-      if (prepared.size > 16) prepared.clear();
+      if (prepared.size >= 16) prepared.clear();
       d = job.prepare(document);
-      prepared.set(runId, d);
+      prepared.set(key, d);
     }
     return d;
   };
