@@ -51,7 +51,10 @@ const RCA = (t: string) => `${t} datasheet (RCA/GE receiving-tube family), from 
 export const TUBE_CATALOG: Record<TubeType, TubeSpec> = {
   '12AX7': {
     type: '12AX7',
-    model: { mu: 100, ex: 1.4, kg1: 1060, kp: 600, kvb: 300, source: KOREN },
+    model: {
+      ...{ mu: 100, ex: 1.4, kg1: 1060, kp: 600, kvb: 300 },
+      source: 'Koren 1996 parameter set (published list); reproduces a published worked example',
+    },
     typical: { va: 250, vg: -2, ia: 1.2e-3, gm: 1.6e-3, rp: 62.5e3, mu: 100, source: RCA('12AX7') },
     maxPlateDissipation: { value: 1.0, source: RCA('12AX7') },
     maxPlateVoltage: { value: 330, source: RCA('12AX7') + ' (design-maximum)' },
@@ -97,7 +100,11 @@ export const TUBE_CATALOG: Record<TubeType, TubeSpec> = {
   '6SN7': {
     type: '6SN7',
     model: { mu: 27.6, ex: 1.3, kg1: 785, kp: 84, kvb: 300, source: FITTED(1.3, 84) },
-    typical: { va: 250, vg: -8, ia: 9e-3, gm: 2.6e-3, rp: 7.7e3, mu: 20, source: RCA('6SN7GTB') },
+    typical: {
+      ...{ va: 250, vg: -8, ia: 9e-3, gm: 2.6e-3, rp: 7.7e3, mu: 20 },
+      source:
+        '6SN7GT class A1 typical operation, checked against a public encyclopedia entry for the 6SN7 family',
+    },
     maxPlateDissipation: { value: 5.0, source: RCA('6SN7GTB') },
     maxPlateVoltage: { value: 450, source: RCA('6SN7GTB') },
     maxHeaterCathode: { value: 200, source: RCA('6SN7GTB') },
