@@ -11,6 +11,17 @@ function fail(message: string): never {
   process.exit(1);
 }
 
+/** The URL without its password, for messages. */
+function redact(url: string): string {
+  try {
+    const u = new URL(url);
+    if (u.password) u.password = '***';
+    return u.toString();
+  } catch {
+    return '(unparseable DATABASE_URL)';
+  }
+}
+
 async function main(): Promise<void> {
   let config;
   try {
@@ -21,7 +32,7 @@ async function main(): Promise<void> {
   try {
     await ensureDatabase(config.databaseUrl);
   } catch (err) {
-    fail(`cannot reach PostgreSQL at ${config.databaseUrl}: ${(err as Error).message}`);
+    fail(`cannot reach PostgreSQL at ${redact(config.databaseUrl)}: ${(err as Error).message}`);
   }
   const db = createDb(config.databaseUrl);
   await migrateToLatest(db);
