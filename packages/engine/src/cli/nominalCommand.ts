@@ -60,6 +60,7 @@ export async function nominalCommand(args: string[]): Promise<number> {
     ...(r.diagnosis ? { diagnosis: r.diagnosis } : {}),
     ...metrics,
     warnings: r.warnings.map((w) => w.message),
+    ratings: r.ratings,
     trim: trim ?? null,
   };
   process.stdout.write(`${JSON.stringify(report, null, 2)}\n`);

@@ -16,6 +16,8 @@ describe('nominalResults', () => {
     expect(r.metrics.a12).toBeGreaterThan(0);
     expect(r.metrics.zin).toBeGreaterThan(1e6); // bootstrapped 1 MΩ leak
     expect(r.warnings).toEqual([]);
+    // RCA 12AX7 maximum ratings as recorded in the catalog (from memory).
+    expect(r.ratings).toEqual({ plateDissipation: 1, plateVoltage: 330, heaterCathode: 180 });
     expect(r.trim).toBeDefined();
   });
 

@@ -16,6 +16,8 @@ export interface NominalReport {
   metrics: MetricValues;
   /** Ratings exceeded at nominal. */
   warnings: StageWarning[];
+  /** The tube's maximum ratings the warnings compare against (W, V). */
+  ratings: { plateDissipation: number; plateVoltage: number; heaterCathode: number };
   /** The RL2 that balances the outputs; absent when there is no valid bias. */
   trim?: TrimResult;
 }
@@ -42,19 +44,25 @@ const DIAGNOSIS: Record<Exclude<BiasStatus, 'ok'>, string> = {
  */
 export function nominalResults(design: ResolvedDesign): NominalReport {
   const ctx = createStageContext(design);
+  const tube = TUBE_CATALOG[design.tube.type];
+  const ratings = {
+    plateDissipation: tube.maxPlateDissipation.value,
+    plateVoltage: tube.maxPlateVoltage.value,
+    heaterCathode: tube.maxHeaterCathode.value,
+  };
   const status = solveStageBias(ctx, nominalStageInputs(design), false);
   const metrics = createStagePoint(design)();
   if (status !== 'ok') {
     const why = DIAGNOSIS[status];
     const vgk = Math.max(ctx.bp.vgk1, ctx.bp.vgk2);
     const detail = status === 'grid-current' ? ` (Vgk = ${Number(vgk.toPrecision(3))} V)` : '';
-    return { status, diagnosis: why + detail, metrics, warnings: [] };
+    return { status, diagnosis: why + detail, metrics, warnings: [], ratings };
   }
-  const tube = TUBE_CATALOG[design.tube.type];
   return {
     status,
     metrics,
     warnings: ratingWarnings(tube, metrics, design.supply.bPlus),
+    ratings,
     trim: trimRl2(design),
   };
 }
