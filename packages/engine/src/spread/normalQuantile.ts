@@ -42,26 +42,27 @@ export function normalQuantile(p: number): number {
       (((((B0 * r + B1) * r + B2) * r + B3) * r + B4) * r + 1)
     );
   }
-  return normalQuantileTail(p);
+  normalQuantileTailInto(p);
+  return TAIL[0];
 }
 
-/** Tails of normalQuantile: p <= 0.02425 or p >= 0.97575, and the edge cases. */
-function normalQuantileTail(p: number): number {
+/** Result slot of the tail function: returning through a typed array avoids a heap number. */
+const TAIL = new Float64Array(1);
+
+/** Tails of normalQuantile (p <= 0.02425 or p >= 0.97575, and the edge cases), into TAIL[0]. */
+function normalQuantileTailInto(p: number): void {
   if (p > 0 && p <= P_LOW) {
     const q = Math.sqrt(-2 * Math.log(p));
-    return (
+    TAIL[0] =
       (((((C0 * q + C1) * q + C2) * q + C3) * q + C4) * q + C5) /
-      ((((D0 * q + D1) * q + D2) * q + D3) * q + 1)
-    );
-  }
-  if (p >= P_HIGH && p < 1) {
+      ((((D0 * q + D1) * q + D2) * q + D3) * q + 1);
+  } else if (p >= P_HIGH && p < 1) {
     const q = Math.sqrt(-2 * Math.log(1 - p));
-    return -(
+    TAIL[0] = -(
       (((((C0 * q + C1) * q + C2) * q + C3) * q + C4) * q + C5) /
       ((((D0 * q + D1) * q + D2) * q + D3) * q + 1)
     );
-  }
-  if (p === 0) return -Infinity;
-  if (p === 1) return Infinity;
-  return NaN;
+  } else if (p === 0) TAIL[0] = -Infinity;
+  else if (p === 1) TAIL[0] = Infinity;
+  else TAIL[0] = NaN;
 }
