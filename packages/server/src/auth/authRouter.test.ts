@@ -133,6 +133,22 @@ describe('sessions end', () => {
   });
 });
 
+describe('reset request rate limit', () => {
+  it('answers 429 once one address asked for too many reset mails', async () => {
+    const limited = await startTestApp({ loginLimit: 4 });
+    try {
+      const u = await buildUser(limited.deps.db);
+      const statuses: number[] = [];
+      for (let i = 0; i < 3; i++) {
+        statuses.push((await limited.client().post('/api/auth/forgot', { email: u.email })).status);
+      }
+      expect(statuses).toEqual([200, 200, 429]);
+    } finally {
+      await limited.close();
+    }
+  });
+});
+
 describe('sign-in rate limit', () => {
   it('answers 429 JSON after too many failed attempts for one IP + email, other emails unaffected', async () => {
     const limited = await startTestApp({ loginLimit: 3 });

@@ -1,28 +1,29 @@
 import type { RequestHandler } from 'express';
-import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 import type { AppConfig } from '../config.js';
+import { emailRateLimit } from './emailRateLimit.js';
 
 /**
- * Limits failed sign-in attempts per IP + email (config.loginLimit per config.loginWindowMs), so one
- * address cannot guess passwords and one user cannot lock out everyone behind the same IP.
- * Memory store: one per app instance, which is enough for one server process.
+ * Failed sign-ins per IP + email: config.loginLimit per config.loginWindowMs. Only failures count,
+ * so a team signing in all day from one office never hits it.
  */
 export function loginRateLimit(config: AppConfig): RequestHandler {
-  return rateLimit({
-    windowMs: config.loginWindowMs,
+  return emailRateLimit({
     limit: config.loginLimit,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    // Only failed attempts count: a team signing in all day from one office never hits it.
-    skipSuccessfulRequests: true,
-    keyGenerator: (req) => {
-      const email = typeof req.body?.email === 'string' ? req.body.email.trim().toLowerCase() : '';
-      return `${ipKeyGenerator(req.ip ?? 'unknown')}|${email}`;
-    },
-    handler: (_req, res) => {
-      res
-        .status(429)
-        .json({ error: { message: 'too many sign-in attempts; wait a few minutes and try again' } });
-    },
+    windowMs: config.loginWindowMs,
+    failuresOnly: true,
+    message: 'too many sign-in attempts; wait a few minutes and try again',
+  });
+}
+
+/**
+ * Reset mails per IP + email: as many per window as sign-in failures, every request counting, so
+ * the form cannot be used to flood someone's inbox.
+ */
+export function forgotRateLimit(config: AppConfig): RequestHandler {
+  return emailRateLimit({
+    limit: Math.max(1, Math.floor(config.loginLimit / 2)),
+    windowMs: config.loginWindowMs,
+    failuresOnly: false,
+    message: 'too many reset requests for this address; wait a few minutes and try again',
   });
 }

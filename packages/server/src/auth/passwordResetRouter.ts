@@ -6,6 +6,7 @@ import { recordAudit } from '../audit/recordAudit.js';
 import { emailField, newPasswordField, tokenField } from '../http/fields.js';
 import { HttpError } from '../http/httpError.js';
 import { findSessionUser } from './findSessionUser.js';
+import { forgotRateLimit } from './loginRateLimit.js';
 import { hashToken, newMailToken } from './mailToken.js';
 
 // One hour: common practice, no source.
@@ -18,7 +19,7 @@ const FORGOT_ANSWER = { ok: true, message: 'if that address has an account, a re
 export function createPasswordResetRouter({ db, mailer, config }: AppDeps): Router {
   const router = Router();
 
-  router.post('/auth/forgot', async (req, res) => {
+  router.post('/auth/forgot', forgotRateLimit(config), async (req, res) => {
     const { email } = forgotBody.parse(req.body ?? {});
     const user = await findSessionUser(db, { email });
     // The same answer whether or not the address exists; the mail goes out after replying, so
