@@ -31,7 +31,7 @@ else
   AS=()
 fi
 ready() { "$PGBIN/pg_isready" -q -h "$PGHOST_ADDR" -p "$PGPORT"; }
-psql_() { "$PGBIN/psql" -h "$PGHOST_ADDR" -p "$PGPORT" -U postgres -v ON_ERROR_STOP=1 -qtA "$@"; }
+psql_() { PGOPTIONS="-c client_min_messages=warning" "$PGBIN/psql" -h "$PGHOST_ADDR" -p "$PGPORT" -U postgres -v ON_ERROR_STOP=1 -qtA "$@"; }
 
 case "${1:-start}" in
   start)
