@@ -47,6 +47,14 @@ describe('chunked runs are bit-identical for any worker count and arrival order'
     });
   }
 
+  it('a chunk gives the same result whatever ran before it in the same worker (pooled buffers)', () => {
+    const plan: RunPlan = { samples: 9000, seed: 'pool', plan: 'lhs', chunkSize: 3000 };
+    const first = JSON.stringify(runSetupChunk(setup, plan, 1));
+    runSetupChunk(setup, { ...plan, plan: 'random', seed: 'other' }, 2);
+    runSetupChunk(setup, plan, 0);
+    expect(JSON.stringify(runSetupChunk(setup, plan, 1))).toBe(first);
+  });
+
   it('sobol indexes one global sequence: the samples do not depend on the chunk size', () => {
     const rows = (chunkSize: number) => {
       const plan: RunPlan = { samples: 3000, seed: 'glob', plan: 'sobol', chunkSize };
