@@ -148,7 +148,7 @@ export function solveBiasInto(c: BiasCircuit, bp: BiasPoint, warm: boolean, step
     // gm and rp come from the last evaluation and are off by a relative ~stepTol at most. The
     // kernel passes 1e-6 (far below any part tolerance; saves one evaluation per sample).
     if (Math.abs(d1) <= stepTol * x1 + 1e-18 && Math.abs(d2) <= stepTol * x2 + 1e-18) {
-      return finish(c, bp, classify(bp, x1 - d1, x2 - d2), it, x1 - d1, x2 - d2);
+      return finish(c, bp, 'ok', it, x1 - d1, x2 - d2);
     }
     // Backtracking on |F1| + |F2|: the Newton direction always descends it (F is monotone), so
     // this cannot cycle the way a bare Newton step does between cut-off and saturation.
@@ -172,7 +172,7 @@ export function solveBiasInto(c: BiasCircuit, bp: BiasPoint, warm: boolean, step
     norm = Math.abs(f1) + Math.abs(f2);
     x1 = n1;
     x2 = n2;
-    if (norm <= 1e-15 * (x1 + x2)) return finish(c, bp, classify(bp, x1, x2), it, p1.ia, p2.ia);
+    if (norm <= 1e-15 * (x1 + x2)) return finish(c, bp, 'ok', it, p1.ia, p2.ia);
   }
   return bisect(c, bp, max1, max2);
 }
@@ -220,7 +220,7 @@ function bisect(c: BiasCircuit, bp: BiasPoint, max1: number, max2: number): Bias
   const x1 = innerIa1(c, bp, x2, max1);
   evalAt(c, x1, x2, bp);
   const ok = Math.abs(x1 - p1.ia) <= 1e-9 * (x1 + 1e-9) && Math.abs(x2 - p2.ia) <= 1e-9 * (x2 + 1e-9);
-  return finish(c, bp, ok ? classify(bp, x1, x2) : 'no-convergence', 999, p1.ia, p2.ia);
+  return finish(c, bp, ok ? 'ok' : 'no-convergence', 999, p1.ia, p2.ia);
 }
 
 /** Resistances positive (Rk may be 0) and finite, multipliers positive; NaN fails every test. */
@@ -238,14 +238,17 @@ function partsValid(c: BiasCircuit): boolean {
   );
 }
 
-function classify(bp: BiasPoint, x1: number, x2: number): BiasStatus {
+function classify(bp: BiasPoint): BiasStatus {
   if (bp.vgk1 > GRID_CURRENT_VGK || bp.vgk2 > GRID_CURRENT_VGK) return 'grid-current';
-  if (x1 < CUTOFF_CURRENT || x2 < CUTOFF_CURRENT) return 'cut-off';
+  if (bp.ia1 < CUTOFF_CURRENT || bp.ia2 < CUTOFF_CURRENT) return 'cut-off';
   if (bp.va1 - bp.vk < MIN_PLATE_VOLTAGE || bp.va2 - bp.vk < MIN_PLATE_VOLTAGE) return 'supply-too-low';
   return 'ok';
 }
 
-/** Records the result; voltages in bp come from the last evaluation, corrected to ia1, ia2. */
+/**
+ * Records the result: voltages recomputed for the final currents ia1, ia2 (gm, rp from the last
+ * evaluation); a converged ('ok') point is then classified (grid current, cut-off, bottomed plate).
+ */
 function finish(
   c: BiasCircuit,
   bp: BiasPoint,
@@ -273,5 +276,6 @@ function finish(
   bp.gm2 = p2.gm;
   bp.ga1 = p1.ga;
   bp.ga2 = p2.ga;
-  return status;
+  if (status === 'ok') bp.status = classify(bp);
+  return bp.status;
 }
