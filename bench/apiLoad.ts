@@ -1,6 +1,7 @@
 // API read latency under load: 100 concurrent clients (autocannon, loopback, 10 s) reading a
 // run's status while a 1e7-sample run computes on a worker on the same machine.
 // Run: npx tsx --conditions=@sigmatail/source bench/apiLoad.ts [seconds] [connections]
+import os from 'node:os';
 import autocannon from 'autocannon';
 import { startStack, startWorker } from './runEndToEnd.js';
 
@@ -42,6 +43,12 @@ try {
   const q = (p: number) => times[Math.min(times.length - 1, Math.floor(p * times.length))]!;
   console.log(
     `GET /api/runs/:id, ${connections} connections, ${seconds} s, while a 1e7-sample run computes:`,
+  );
+  console.log(
+    `machine: ${os.cpus().length} cores, load average ${os
+      .loadavg()
+      .map((x) => x.toFixed(1))
+      .join(' ')}`,
   );
   console.log(`requests ${result.requests.total}, ${Math.round(result.requests.average)} req/s`);
   console.log(
