@@ -8,7 +8,8 @@ function columns(d: number, n: number): Float64Array[] {
 
 describe('sampling plans', () => {
   it('Sobol directions reproduce the first points of the Joe–Kuo sequence', () => {
-    // Unshifted points 0..7 in dimensions 1 and 2 (Joe & Kuo, new-joe-kuo-6.21201; Gray-code order):
+    // Unshifted points 0..7 in dimensions 1 and 2 of the Sobol sequence in Gray-code order (from
+    // memory; dimension 2 uses the Joe & Kuo new-joe-kuo-6.21201 entry s = 1, a = 0, m = 1):
     // (0,0) (.5,.5) (.75,.25) (.25,.75) (.375,.375) (.875,.875) (.625,.125) (.125,.625).
     const v = sobolDirections(2);
     const x = [0, 0];
