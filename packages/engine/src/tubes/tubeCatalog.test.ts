@@ -33,8 +33,8 @@ describe('tube catalog against datasheet typical points (RCA/GE datasheet figure
     expect(Math.abs(ia / 2 / 1.2e-3 - 1)).toBeGreaterThan(0.5);
   });
 
-  it('reproduces a published worked example with the Koren 12AX7 set (electronics textbook, "Vacuum Tubes" chapter)', () => {
-    // The worked example solves a 12AX7 stage with Koren's 12AX7 parameters and finds
+  it('agrees with a worked 12AX7 stage solved with the Koren 12AX7 set (from memory)', () => {
+    // A worked 12AX7 stage solved with Koren's 12AX7 parameters finds
     // Ia = 1.07 mA at Va = 221 V, Vg = −1.61 V, with gm = 1880 µS; only the factor-2 law gives this.
     const pt = korenPointInto(TUBE_CATALOG['12AX7'].model, 221, -1.61, 1, 1, { ia: 0, gm: 0, ga: 0 });
     // The example quotes three figures, so agree to its rounding (1 %).
