@@ -1,4 +1,5 @@
 import type { QueryClient } from '@tanstack/react-query';
+import type { ComponentType } from 'react';
 import { createBrowserRouter, redirect, type LoaderFunctionArgs } from 'react-router';
 import { authQueries } from './api/queries/authQueries.js';
 import { designQueries } from './api/queries/designQueries.js';
@@ -11,13 +12,18 @@ import { ForgotPage } from './pages/ForgotPage.js';
 import { ResetPage } from './pages/ResetPage.js';
 import { InviteAcceptPage } from './pages/InviteAcceptPage.js';
 import { DesignsPage } from './pages/DesignsPage.js';
-import { DesignEditorPage } from './pages/DesignEditorPage.js';
-import { RevisionPage } from './pages/RevisionPage.js';
 import { RunsPage } from './pages/RunsPage.js';
-import { RunPage } from './pages/RunPage.js';
-import { ReportPage } from './pages/ReportPage.js';
-import { ComparePage } from './pages/ComparePage.js';
-import { AdminPage } from './pages/AdminPage.js';
+
+// Pages that pull in the engine or d3 load on first visit, so sign-in and lists stay small.
+const page = (load: () => Promise<{ [k: string]: ComponentType }>, name: string) => async () => ({
+  Component: (await load())[name],
+});
+const DesignEditor = page(() => import('./pages/DesignEditorPage.js'), 'DesignEditorPage');
+const Revision = page(() => import('./pages/RevisionPage.js'), 'RevisionPage');
+const Run = page(() => import('./pages/RunPage.js'), 'RunPage');
+const Report = page(() => import('./pages/ReportPage.js'), 'ReportPage');
+const Compare = page(() => import('./pages/ComparePage.js'), 'ComparePage');
+const Admin = page(() => import('./pages/AdminPage.js'), 'AdminPage');
 
 /**
  * Routes. Loaders only warm the query cache (`ensureQueryData`); pages read through `useQuery`, so
@@ -52,10 +58,10 @@ export function createAppRouter(qc: QueryClient) {
           element: <DesignsPage />,
           loader: async () => (await warm(qc.ensureQueryData(designQueries.list(''))), null),
         },
-        { path: 'designs/new', element: <DesignEditorPage /> },
+        { path: 'designs/new', lazy: DesignEditor },
         {
           path: 'designs/:id',
-          element: <DesignEditorPage />,
+          lazy: DesignEditor,
           loader: async ({ params }) => (
             await warm(qc.ensureQueryData(designQueries.detail(params.id!))),
             null
@@ -63,7 +69,7 @@ export function createAppRouter(qc: QueryClient) {
         },
         {
           path: 'designs/:id/revisions/:rev',
-          element: <RevisionPage />,
+          lazy: Revision,
           loader: async ({ params }) => (
             await warm(qc.ensureQueryData(designQueries.revision(params.id!, Number(params.rev)))),
             null
@@ -76,18 +82,18 @@ export function createAppRouter(qc: QueryClient) {
         },
         {
           path: 'runs/:id',
-          element: <RunPage />,
+          lazy: Run,
           loader: async ({ params }) => (await warm(qc.ensureQueryData(runQueries.detail(params.id!))), null),
         },
         {
           path: 'runs/:id/report',
-          element: <ReportPage />,
+          lazy: Report,
           loader: async ({ params }) => (await warm(qc.ensureQueryData(runQueries.detail(params.id!))), null),
         },
-        { path: 'compare', element: <ComparePage /> },
+        { path: 'compare', lazy: Compare },
         {
           path: 'admin',
-          element: <AdminPage />,
+          lazy: Admin,
           loader: async () => (await warm(qc.ensureQueryData(adminQueries.users())), null),
         },
       ],

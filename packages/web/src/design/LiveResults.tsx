@@ -1,4 +1,3 @@
-import { TUBE_CATALOG } from '@sigmatail/engine';
 import type { ReactNode } from 'react';
 import { formatSi, formatSig } from '../format/formatSi.js';
 import type { NominalState } from './useNominal.js';
@@ -29,11 +28,10 @@ export function LiveResults({ state }: { state: NominalState }) {
       </section>
     );
   }
-  const { report, design } = state;
+  const { report } = state;
   const m = report.metrics;
-  const tube = TUBE_CATALOG[design.tube.type];
-  const pdMax = tube.maxPlateDissipation.value;
-  const hkMax = tube.maxHeaterCathode.value;
+  const pdMax = report.ratings.plateDissipation;
+  const hkMax = report.ratings.heaterCathode;
   return (
     <section
       aria-label="Live nominal results"
