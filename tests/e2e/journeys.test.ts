@@ -158,3 +158,42 @@ describe('a viewer cannot edit', () => {
     await page.context().close();
   });
 });
+
+describe('password reset and the production role', () => {
+  it('mails a reset link, sets a new password, and production may launch but not edit', async () => {
+    const page = await h.browser.newPage({ viewport: { width: 1360, height: 900 } });
+    await page.goto(`${h.baseUrl}/forgot`);
+    await page.getByLabel('Email').fill('production@fenwick.example');
+    await page.getByRole('button', { name: 'Send reset link' }).click();
+    await page.getByRole('status').waitFor();
+    // The server sends the mail after answering, so wait for the fake to store it.
+    let text = '';
+    await expect
+      .poll(async () => {
+        const row = await h.db
+          .selectFrom('dev_mail')
+          .select('text')
+          .where('mail_to', '=', 'production@fenwick.example')
+          .orderBy('received_at', 'desc')
+          .executeTakeFirst();
+        text = row?.text ?? '';
+        return /\/reset\/\S+/.test(text);
+      })
+      .toBe(true);
+    const link = /https?:\/\/\S+\/reset\/[A-Za-z0-9_-]+/.exec(text)![0];
+    await page.goto(link);
+    await page.getByLabel(/^New password/).fill('fresh-tail-pair-1');
+    await page.getByLabel('Repeat it').fill('fresh-tail-pair-1');
+    await screenshot(page, '13-reset-password');
+    await page.getByRole('button', { name: 'Set password' }).click();
+    await page.getByText('Password changed.').waitFor();
+    await page.close();
+
+    const prod = await signIn(h.browser, h.baseUrl, 'production@fenwick.example', 'fresh-tail-pair-1');
+    await prod.getByRole('link', { name: /FL-50 driver/ }).click();
+    await prod.getByRole('button', { name: 'Launch run' }).waitFor();
+    await expect(prod.getByRole('button', { name: 'Launch run' }).isEnabled()).resolves.toBe(true);
+    await expect(prod.getByLabel('Design name').isDisabled()).resolves.toBe(true);
+    await prod.context().close();
+  });
+});
