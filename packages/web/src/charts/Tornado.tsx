@@ -38,7 +38,10 @@ export function Tornado({
   const rowH = 20;
   const left = 96;
   const height = sorted.length * rowH + 44;
-  const all = sorted.flatMap((b) => [b.low, b.high]).concat(centre);
+  const ends = sorted.flatMap((b) => [b.low, b.high]);
+  // Without a nominal value (older results), centre the bars on the middle of their span.
+  if (!Number.isFinite(centre)) centre = (Math.min(...ends) + Math.max(...ends)) / 2;
+  const all = ends.concat(centre);
   const x = scaleLinear()
     .domain([Math.min(...all), Math.max(...all)])
     .range([left, width - 16])

@@ -56,3 +56,15 @@ describe('live nominal results', () => {
     expect(screen.queryByRole('button', { name: /Save/ })).toBeNull();
   });
 });
+
+describe('switching to direct-coupled', () => {
+  it('asks for the grid drive and evaluates once grid 1 DC is given', async () => {
+    render(<DesignForm initial={defaultDesign()} readOnly={false} onSave={async () => undefined} />);
+    await userEvent.selectOptions(screen.getByLabelText('Topology'), 'direct-coupled');
+    const g1 = await screen.findByLabelText('Grid 1 DC (V)');
+    // Near the cathode voltage this stage settles at when cap-coupled (about 18 V), so a bias point exists.
+    await userEvent.type(g1, '20');
+    await screen.findByTestId('balance');
+    expect(screen.getByLabelText('Grid 2')).toHaveValue('leak-to-grid1');
+  });
+});
