@@ -24,7 +24,11 @@ export class ChunkQueue {
     private readonly engineVersion: string = ENGINE_VERSION,
   ) {}
 
-  /** Leases up to `limit` open chunks (pending, or leased with an expired lease), oldest run first. */
+  /**
+   * Leases up to `limit` open chunks (pending, or leased with an expired lease). Runs take turns
+   * chunk by chunk (lowest chunk index first, then oldest run), so a small run launched during a
+   * 1e8-sample one finishes in seconds instead of waiting for it.
+   */
   async claim(limit: number): Promise<ClaimedChunk[]> {
     if (limit <= 0) return [];
     const { rows } = await sql<{ run_id: string; chunk_index: number; attempts: number }>`
@@ -34,7 +38,7 @@ export class ChunkQueue {
         where r.status in ('queued', 'running') and r.engine_version = ${this.engineVersion} and c.state <> 'done'
           and (c.state = 'pending' or c.lease_until < now())
           and c.attempts < ${this.maxAttempts}
-        order by r.created_at, c.run_id, c.chunk_index
+        order by c.chunk_index, r.created_at, c.run_id
         limit ${limit}
         for update of c skip locked
       )

@@ -145,4 +145,13 @@ describe('ChunkWorker with the fake job', () => {
     expect(run.finished_at).not.toBeNull();
     expect(lines.filter((l) => l.includes('chunk 3 attempt'))).toHaveLength(3);
   });
+
+  it('lets runs take turns, so a small run is not stuck behind a big one', async () => {
+    const big = await buildRun(db, { samples: 50_000, chunkSize: 1_000 });
+    const small = await buildRun(db, { samples: 2_000, chunkSize: 1_000 });
+    const q = new ChunkQueue(db, 'turns', 5_000);
+    const claimed = await q.claim(6);
+    expect(claimed.filter((c) => c.runId === small).map((c) => c.chunkIndex)).toEqual([-1, 0, 1]);
+    expect(claimed.filter((c) => c.runId === big).map((c) => c.chunkIndex)).toEqual([-1, 0, 1]);
+  });
 });
