@@ -38,6 +38,7 @@ export class ChunkWorker {
   private stopped = false;
   private lastSweep = 0;
   private wakeUp: (() => void) | undefined;
+  private wakePending = false;
   private heartbeatTimer: NodeJS.Timeout | undefined;
   private loopDone: Promise<void> | undefined;
   private readonly log: (line: string) => void;
@@ -53,8 +54,10 @@ export class ChunkWorker {
     this.loopDone = this.loop();
   }
 
-  /** Looks for work now (a run was launched) instead of at the next poll. */
+  /** Looks for work now (a run was launched, a chunk finished) instead of at the next poll. */
   wake(): void {
+    // Remembered when the loop is busy, so a wake during a claim is not lost until the next poll.
+    this.wakePending = true;
     this.wakeUp?.();
   }
 
@@ -92,6 +95,10 @@ export class ChunkWorker {
         this.log(`worker loop: ${(err as Error).message}`);
       }
       if (this.stopped) break;
+      if (this.wakePending) {
+        this.wakePending = false;
+        continue;
+      }
       await new Promise<void>((resolve) => {
         const t = setTimeout(resolve, this.o.pollMs);
         this.wakeUp = () => {
@@ -100,6 +107,7 @@ export class ChunkWorker {
         };
       });
       this.wakeUp = undefined;
+      this.wakePending = false;
     }
   }
 
