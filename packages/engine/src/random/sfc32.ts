@@ -51,10 +51,12 @@ export class Sfc32 {
    * of nextOpen, with the state kept in locals for speed.
    */
   fillOpen(out: Float64Array, n: number): void {
-    let a = this.a;
-    let b = this.b;
-    let c = this.c;
-    let d = this.d;
+    // `| 0` makes the loop-entry values int32 for the optimiser: the fields may hold heap numbers
+    // (int32 beyond the small-integer range), and without it the whole loop runs in float64.
+    let a = this.a | 0;
+    let b = this.b | 0;
+    let c = this.c | 0;
+    let d = this.d | 0;
     for (let i = 0; i < n; i++) {
       const t = (((a + b) | 0) + d) | 0;
       d = (d + 1) | 0;
