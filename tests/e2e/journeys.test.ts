@@ -147,6 +147,11 @@ describe('a viewer cannot edit', () => {
     const page = await signIn(h.browser, h.baseUrl, 'viewer@fenwick.example');
     await expect(page.getByRole('link', { name: 'New design' }).count()).resolves.toBe(0);
     await expect(page.getByRole('link', { name: 'Admin' }).count()).resolves.toBe(0);
+    // Search covers the notes of the latest revision too.
+    await page.getByLabel('Search designs').fill('metal film');
+    await expect.poll(() => page.getByRole('list', { name: 'Designs' }).getByRole('link').count()).toBe(1);
+    await expect(page.getByRole('link', { name: /Studio line driver/ }).count()).resolves.toBe(1);
+    await page.getByLabel('Search designs').fill('');
     await page.getByRole('link', { name: /FL-50 driver/ }).click();
     await page.getByLabel('Design name').waitFor();
     await expect(page.getByLabel('Design name').isDisabled()).resolves.toBe(true);

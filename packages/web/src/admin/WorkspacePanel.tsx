@@ -2,7 +2,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { MAX_SAMPLES, SAMPLING_PLANS } from '@sigmatail/engine';
 import { useState } from 'react';
 import { api } from '../api/client.js';
-import { adminQueries } from '../api/queries/adminQueries.js';
+import { workspaceQueries } from '../api/queries/workspaceQueries.js';
 import { authQueries } from '../api/queries/authQueries.js';
 import type { SamplingPlan, Workspace } from '../api/types.js';
 import { ErrorNote, Loading } from '../components/QueryState.js';
@@ -10,7 +10,7 @@ import { Button, inputClass, labelClass, Panel } from '../components/ui.js';
 
 /** Workspace name and the defaults new runs start from. */
 export function WorkspacePanel() {
-  const ws = useQuery(adminQueries.workspace());
+  const ws = useQuery(workspaceQueries.detail());
   return (
     <Panel title="Workspace settings">
       {ws.isPending && <Loading />}
@@ -37,7 +37,7 @@ function WorkspaceForm({ workspace }: { workspace: Workspace }) {
         },
       }),
     onSuccess: async () => {
-      await qc.invalidateQueries({ queryKey: adminQueries.all });
+      await qc.invalidateQueries({ queryKey: workspaceQueries.all });
       await qc.invalidateQueries({ queryKey: authQueries.all });
     },
   });

@@ -37,6 +37,7 @@ export function AdminPage() {
             role="tab"
             type="button"
             aria-selected={tab === t.id}
+            tabIndex={tab === t.id ? 0 : -1}
             onClick={() => setParams({ tab: t.id })}
             className={`-mb-px rounded-t-md border px-3 py-1.5 text-sm ${
               tab === t.id

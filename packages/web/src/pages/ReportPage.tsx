@@ -1,6 +1,6 @@
 import { useQuery } from '@tanstack/react-query';
 import { useParams } from 'react-router';
-import { adminQueries } from '../api/queries/adminQueries.js';
+import { workspaceQueries } from '../api/queries/workspaceQueries.js';
 import { runQueries } from '../api/queries/runQueries.js';
 import { ErrorNote, Loading } from '../components/QueryState.js';
 import { SafetyCaution } from '../components/SafetyCaution.js';
@@ -14,7 +14,7 @@ export function ReportPage() {
   const { id = '' } = useParams();
   const run = useQuery(runQueries.detail(id));
   const results = useQuery({ ...runQueries.results(id), enabled: run.data?.status === 'done' });
-  const ws = useQuery(adminQueries.workspace());
+  const ws = useQuery(workspaceQueries.detail());
   if (run.isPending || (run.data?.status === 'done' && results.isPending))
     return <Loading label="Preparing the report…" />;
   if (run.isError) return <ErrorNote error={run.error} />;

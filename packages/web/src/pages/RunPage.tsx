@@ -1,6 +1,6 @@
 import { useQuery } from '@tanstack/react-query';
 import { Link, useParams } from 'react-router';
-import { adminQueries } from '../api/queries/adminQueries.js';
+import { workspaceQueries } from '../api/queries/workspaceQueries.js';
 import { runQueries } from '../api/queries/runQueries.js';
 import { api } from '../api/client.js';
 import { can } from '../auth/permissions.js';
@@ -19,7 +19,7 @@ export function RunPage() {
   const run = useQuery(runQueries.detail(id));
   const done = run.data?.status === 'done';
   const results = useQuery({ ...runQueries.results(id), enabled: done });
-  const ws = useQuery(adminQueries.workspace());
+  const ws = useQuery(workspaceQueries.detail());
   if (run.isPending) return <Loading label="Loading run…" />;
   if (run.isError) return <ErrorNote error={run.error} onRetry={() => run.refetch()} />;
   const mayExport = can(me.role, 'export');

@@ -1,6 +1,6 @@
 import { MAX_SAMPLES, MAX_SEED_LENGTH, SAMPLING_PLANS } from '@sigmatail/engine';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { adminQueries } from '../api/queries/adminQueries.js';
+import { workspaceQueries } from '../api/queries/workspaceQueries.js';
 import { useState } from 'react';
 import { useNavigate } from 'react-router';
 import { api } from '../api/client.js';
@@ -19,7 +19,7 @@ const PLAN_LABELS: Record<SamplingPlan, string> = {
 
 /** Launch a run of the design's latest revision, starting from the workspace's default N and plan. */
 export function RunLaunchPanel({ designId, revision }: { designId: string; revision?: number }) {
-  const ws = useQuery(adminQueries.workspace());
+  const ws = useQuery(workspaceQueries.detail());
   if (ws.isPending) return <Loading />;
   const defaults = ws.data?.settings ?? { defaultSamples: 100_000, defaultPlan: 'random' as const };
   return (

@@ -8,11 +8,6 @@ export const adminQueries = {
       queryKey: [...adminQueries.all, 'users'] as const,
       queryFn: () => api.admin.users(),
     }),
-  workspace: () =>
-    queryOptions({
-      queryKey: [...adminQueries.all, 'workspace'] as const,
-      queryFn: async () => (await api.admin.workspace()).workspace,
-    }),
   inbox: () =>
     queryOptions({
       queryKey: [...adminQueries.all, 'inbox'] as const,
