@@ -167,6 +167,11 @@ describe('runs API', () => {
       .where('target', '=', id)
       .execute();
     expect(actions.map((a) => a.action).sort()).toEqual(['run.cancel', 'run.launch']);
+    // Admins read them through the audit API.
+    const admin = await signIn(app, team.admin);
+    const listed = await admin.get('/api/audit?action=run.cancel');
+    expect(listed.status).toBe(200);
+    expect(listed.body.events.map((e: { target: string }) => e.target)).toContain(id);
   });
 
   it('keeps runs of other workspaces invisible', async () => {
