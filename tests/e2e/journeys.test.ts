@@ -160,6 +160,11 @@ describe('a viewer cannot edit', () => {
     await expect(page.getByRole('button', { name: /Save revision/ }).count()).resolves.toBe(0);
     await page.getByTestId('balance').waitFor();
     await screenshot(page, '11-viewer-design');
+    await page.getByRole('link', { name: 'rev 1' }).click();
+    await page.getByText('back to the latest').waitFor();
+    await expect(page.getByLabel('RL2 value').isDisabled()).resolves.toBe(true);
+    await page.getByTestId('balance').waitFor();
+    await screenshot(page, '11a-viewer-old-revision');
     await page.context().close();
   });
 });

@@ -1,5 +1,5 @@
 import { useQueryClient } from '@tanstack/react-query';
-import { NavLink, Outlet, useNavigate } from 'react-router';
+import { NavLink, Outlet, ScrollRestoration, useNavigate } from 'react-router';
 import { api } from '../api/client.js';
 import { can } from '../auth/permissions.js';
 import { useMe } from '../auth/useMe.js';
@@ -61,6 +61,8 @@ export function AppLayout() {
       <main className="mx-auto w-full max-w-7xl flex-1 px-4 py-6">
         <Outlet />
       </main>
+      {/* New pages open at the top; back and forward return to where the reader was. */}
+      <ScrollRestoration />
       <footer className="no-print border-t border-rule py-3 text-center text-xs text-dim">
         Sigmatail · high voltage kills: discharge capacitors, respect ratings · a design aid, not a substitute
         for local codes or licensed practice

@@ -3,6 +3,7 @@ import { useQuery } from '@tanstack/react-query';
 import { Link, useParams } from 'react-router';
 import { designQueries } from '../api/queries/designQueries.js';
 import { ErrorNote, Loading } from '../components/QueryState.js';
+import { SafetyCaution } from '../components/SafetyCaution.js';
 import { PageTitle } from '../components/ui.js';
 import { DesignForm } from '../design/DesignForm.js';
 
@@ -28,6 +29,7 @@ export function RevisionPage() {
       >
         {doc.name}
       </PageTitle>
+      <SafetyCaution compact />
       <DesignForm initial={doc} readOnly />
     </div>
   );
