@@ -1,3 +1,4 @@
+import { statSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startE2e, type E2eHarness } from '../src/e2eHarness.js';
 import { screenshot } from '../src/screenshot.js';
@@ -107,6 +108,16 @@ describe('engineer designs, runs and compares', () => {
     const yieldText = await page.getByTestId('joint-yield').textContent();
     expect(yieldText).toMatch(/^\d+(\.\d+)? %$/);
     await screenshot(page, '08-run-results');
+    // Chart export: each chart saves as SVG and as PNG.
+    for (const kind of ['SVG', 'PNG']) {
+      const [download] = await Promise.all([
+        page.waitForEvent('download'),
+        page.getByRole('button', { name: `Download Balance (dB) as ${kind}` }).click(),
+      ]);
+      const file = await download.path();
+      expect(download.suggestedFilename()).toMatch(new RegExp(`balanceDb\\.${kind.toLowerCase()}$`));
+      expect(statSync(file).size).toBeGreaterThan(1000);
+    }
 
     await page.goto(`${runA}/report`);
     await page.getByRole('button', { name: 'Print or save as PDF' }).waitFor();
