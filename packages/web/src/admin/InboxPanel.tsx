@@ -7,7 +7,8 @@ import { formatWhen } from '../format/formatWhen.js';
 
 /** Mail captured by the local SMTP fake (development and tests only). */
 export function InboxPanel() {
-  const inbox = useQuery(adminQueries.inbox());
+  // Mail is sent after the request that causes it answers, so keep looking for a while.
+  const inbox = useQuery({ ...adminQueries.inbox(), refetchInterval: 3000 });
   const [open, setOpen] = useState<string | null>(null);
   const message = useQuery({ ...adminQueries.inboxMessage(open ?? ''), enabled: open !== null });
   return (
