@@ -1,12 +1,14 @@
 import { solveStageBias, type StageContext, type StageInputs } from './stageEvaluator.js';
 
-/** Inputs that move the DC point. */
+/** Inputs that move the DC point, in the DC_* slot order of stageEvaluator. */
 const DC_INPUTS = ['rl1', 'rl2', 'rk', 'rt', 'perv1', 'perv2', 'mu1', 'mu2'] as const;
 
 /** Second-order start point for the per-sample bias solve. */
 export interface BiasPredictor {
   /** Writes predicted Ia1, Ia2 (A) for inputs `x` into ctx.bp. */
   predictInto(x: StageInputs): void;
+  /** Same as predictInto, the DC inputs given in the DC_* slots of `dcv` (per-sample path). */
+  predictArr(dcv: Float64Array): void;
 }
 
 /**
@@ -55,40 +57,46 @@ export function createBiasPredictor(ctx: StageContext, nominal: StageInputs): Bi
       x2 = (pp[1] - pm[1] - mp[1] + mm[1]) / (4 * h * h);
     }
   }
+  const dcv = new Float64Array(DC_INPUTS.length);
+  function predictArr(v: Float64Array): void {
+    const d0 = v[0] / nom[0] - 1;
+    const d1 = v[1] / nom[1] - 1;
+    const d2 = v[2] / nom[2] - 1;
+    const d3 = v[3] / nom[3] - 1;
+    const d4 = v[4] / nom[4] - 1;
+    const d5 = v[5] / nom[5] - 1;
+    const d6 = v[6] / nom[6] - 1;
+    const d7 = v[7] / nom[7] - 1;
+    const p1 =
+      ia1 +
+      d0 * (s1[0] + h1[0] * d0) +
+      d1 * (s1[1] + h1[1] * d1) +
+      d2 * (s1[2] + h1[2] * d2) +
+      d3 * (s1[3] + h1[3] * d3) +
+      d4 * (s1[4] + h1[4] * d4 + x1 * d5) +
+      d5 * (s1[5] + h1[5] * d5) +
+      d6 * (s1[6] + h1[6] * d6) +
+      d7 * (s1[7] + h1[7] * d7);
+    const p2 =
+      ia2 +
+      d0 * (s2[0] + h2[0] * d0) +
+      d1 * (s2[1] + h2[1] * d1) +
+      d2 * (s2[2] + h2[2] * d2) +
+      d3 * (s2[3] + h2[3] * d3) +
+      d4 * (s2[4] + h2[4] * d4 + x2 * d5) +
+      d5 * (s2[5] + h2[5] * d5) +
+      d6 * (s2[6] + h2[6] * d6) +
+      d7 * (s2[7] + h2[7] * d7);
+    // A prediction outside the physical range falls back to the nominal currents.
+    ctx.bp.ia1 = p1 > 0 ? p1 : ia1;
+    ctx.bp.ia2 = p2 > 0 ? p2 : ia2;
+  }
   return {
     predictInto(x: StageInputs): void {
-      const d0 = x.rl1 / nom[0] - 1;
-      const d1 = x.rl2 / nom[1] - 1;
-      const d2 = x.rk / nom[2] - 1;
-      const d3 = x.rt / nom[3] - 1;
-      const d4 = x.perv1 / nom[4] - 1;
-      const d5 = x.perv2 / nom[5] - 1;
-      const d6 = x.mu1 / nom[6] - 1;
-      const d7 = x.mu2 / nom[7] - 1;
-      const p1 =
-        ia1 +
-        d0 * (s1[0] + h1[0] * d0) +
-        d1 * (s1[1] + h1[1] * d1) +
-        d2 * (s1[2] + h1[2] * d2) +
-        d3 * (s1[3] + h1[3] * d3) +
-        d4 * (s1[4] + h1[4] * d4 + x1 * d5) +
-        d5 * (s1[5] + h1[5] * d5) +
-        d6 * (s1[6] + h1[6] * d6) +
-        d7 * (s1[7] + h1[7] * d7);
-      const p2 =
-        ia2 +
-        d0 * (s2[0] + h2[0] * d0) +
-        d1 * (s2[1] + h2[1] * d1) +
-        d2 * (s2[2] + h2[2] * d2) +
-        d3 * (s2[3] + h2[3] * d3) +
-        d4 * (s2[4] + h2[4] * d4 + x2 * d5) +
-        d5 * (s2[5] + h2[5] * d5) +
-        d6 * (s2[6] + h2[6] * d6) +
-        d7 * (s2[7] + h2[7] * d7);
-      // A prediction outside the physical range falls back to the nominal currents.
-      ctx.bp.ia1 = p1 > 0 ? p1 : ia1;
-      ctx.bp.ia2 = p2 > 0 ? p2 : ia2;
+      DC_INPUTS.forEach((k, i) => (dcv[i] = x[k]));
+      predictArr(dcv);
     },
+    predictArr,
   };
 }
 

@@ -123,6 +123,43 @@ export function solveStageBias(
   return solveBiasInto(b, ctx.bp, warm, stepTol);
 }
 
+/** Slots of the DC scratch array read by {@link solveStageBiasArr} (the bias predictor's order). */
+export const DC_RL1 = 0;
+export const DC_RL2 = 1;
+export const DC_RK = 2;
+export const DC_RT = 3;
+export const DC_PERV1 = 4;
+export const DC_PERV2 = 5;
+export const DC_MU1 = 6;
+export const DC_MU2 = 7;
+/** Length of the DC scratch array. */
+export const DC_SLOTS = 8;
+
+/**
+ * {@link solveStageBias} with the DC inputs in the DC_* slots of a Float64Array, for the
+ * per-sample path (no per-sample object writes of inputs).
+ *
+ * @example
+ * solveStageBiasArr(ctx, dcv, true, 1e-6); // 'ok'
+ */
+export function solveStageBiasArr(
+  ctx: StageContext,
+  dcv: Float64Array,
+  warm: boolean,
+  stepTol: number,
+): BiasPoint['status'] {
+  const b = ctx.bias;
+  b.rl1 = dcv[DC_RL1];
+  b.rl2 = dcv[DC_RL2];
+  b.rk = dcv[DC_RK];
+  b.rt = dcv[DC_RT];
+  b.perv1 = dcv[DC_PERV1];
+  b.perv2 = dcv[DC_PERV2];
+  b.muScale1 = dcv[DC_MU1];
+  b.muScale2 = dcv[DC_MU2];
+  return solveBiasInto(b, ctx.bp, warm, stepTol);
+}
+
 /**
  * Small-signal gains of one sample from section parameters mu, rp (Ω) into ctx.gains: the closed
  * form when it is exact for this design, else the hand-reduced nodal solve.

@@ -1,12 +1,46 @@
 import type { ResolvedDesign } from '../design/designSchema.js';
 import { METRIC_IDS, METRICS, type MetricId, type MetricInfo } from './metrics.js';
 import { createBiasPredictor } from './biasPredictor.js';
+import { closedFormGainsArr } from './closedFormGains.js';
+import {
+  G_A11,
+  G_A12,
+  G_A21,
+  G_A22,
+  G_SLOTS,
+  G_ZIN,
+  G_ZOUT1,
+  G_ZOUT2,
+  reducedNodalGainsArr,
+  SS_MU1,
+  SS_MU2,
+  SS_RG1,
+  SS_RG2,
+  SS_RK,
+  SS_RL1,
+  SS_RL2,
+  SS_RLOAD1,
+  SS_RLOAD2,
+  SS_RP1,
+  SS_RP2,
+  SS_RSOURCE,
+  SS_RT,
+  SS_SLOTS,
+} from './reducedNodalGains.js';
 import {
   createStageContext,
+  DC_MU1,
+  DC_MU2,
+  DC_PERV1,
+  DC_PERV2,
+  DC_RK,
+  DC_RL1,
+  DC_RL2,
+  DC_RT,
+  DC_SLOTS,
   nominalStageInputs,
   solveStageBias,
-  stageGains,
-  type StageInputs,
+  solveStageBiasArr,
 } from './stageEvaluator.js';
 
 export { METRICS, METRIC_IDS, type MetricId, type MetricInfo };
@@ -85,8 +119,42 @@ export function createStageKernel(design: ResolvedDesign, options?: { dcPerSampl
   solveStageBias(ctx, nominal, false);
   const nb = { ...ctx.bp };
   const nominalValid = nb.status === 'ok';
-  const x: StageInputs = { ...nominal };
   const heater = ctx.heater;
+  // Per-sample scratch: DC inputs, small-signal circuit, gains (see the *Arr solvers).
+  const dcv = new Float64Array(DC_SLOTS);
+  const v = new Float64Array(SS_SLOTS);
+  const g = new Float64Array(G_SLOTS);
+
+  // Slot numbers as locals: an imported binding can cost a getter call per use (transpiled
+  // modules), which the per-sample loop must not pay.
+  const g_a11 = G_A11;
+  const g_a12 = G_A12;
+  const g_a21 = G_A21;
+  const g_a22 = G_A22;
+  const g_zin = G_ZIN;
+  const g_zout1 = G_ZOUT1;
+  const g_zout2 = G_ZOUT2;
+  const ss_mu1 = SS_MU1;
+  const ss_mu2 = SS_MU2;
+  const ss_rg1 = SS_RG1;
+  const ss_rg2 = SS_RG2;
+  const ss_rk = SS_RK;
+  const ss_rl1 = SS_RL1;
+  const ss_rl2 = SS_RL2;
+  const ss_rload1 = SS_RLOAD1;
+  const ss_rload2 = SS_RLOAD2;
+  const ss_rp1 = SS_RP1;
+  const ss_rp2 = SS_RP2;
+  const ss_rsource = SS_RSOURCE;
+  const ss_rt = SS_RT;
+  const dc_mu1 = DC_MU1;
+  const dc_mu2 = DC_MU2;
+  const dc_perv1 = DC_PERV1;
+  const dc_perv2 = DC_PERV2;
+  const dc_rk = DC_RK;
+  const dc_rl1 = DC_RL1;
+  const dc_rl2 = DC_RL2;
+  const dc_rt = DC_RT;
 
   function evaluate(inputs: readonly Float64Array[], n: number, out: readonly Float64Array[]): void {
     const bp = ctx.bp;
@@ -132,29 +200,42 @@ export function createStageKernel(design: ResolvedDesign, options?: { dcPerSampl
     const o_mu1 = out[col('mu1')];
     const o_mu2 = out[col('mu2')];
     const o_valid = out[col('valid')];
+    const closedForm = ctx.closedForm;
+    const capCoupled = ctx.ss.capCoupled;
+    const leakToGrid1 = ctx.ss.leakToGrid1;
     for (let s = 0; s < n; s++) {
-      x.rl1 = i_rl1[s];
-      x.rl2 = i_rl2[s];
-      x.rk = i_rk[s];
-      x.rt = i_rt[s];
-      x.rg1 = i_rg1[s];
-      x.rg2 = i_rg2[s];
-      x.rload1 = i_rload1[s];
-      x.rload2 = i_rload2[s];
-      x.rsource = i_rsource[s];
-      x.mu1 = i_mu1[s];
-      x.mu2 = i_mu2[s];
-      x.perv1 = i_perv1[s];
-      x.perv2 = i_perv2[s];
+      // Inputs go to locals and Float64Array scratch only: doubles written to object fields or
+      // passed to non-inlined calls would be boxed (a heap number each) per sample.
+      const rl1 = i_rl1[s];
+      const rl2 = i_rl2[s];
+      const rk = i_rk[s];
+      const rt = i_rt[s];
+      const rg1 = i_rg1[s];
+      const rg2 = i_rg2[s];
+      const rload1 = i_rload1[s];
+      const rload2 = i_rload2[s];
+      const rsource = i_rsource[s];
+      const xmu1 = i_mu1[s];
+      const xmu2 = i_mu2[s];
+      const perv1 = i_perv1[s];
+      const perv2 = i_perv2[s];
       // Small-signal-only parts must be usable too (Infinity is fine for the loads).
-      if (!(x.rg1 > 0 && x.rg2 > 0 && x.rload1 > 0 && x.rload2 > 0 && x.rsource >= 0)) {
+      if (!(rg1 > 0 && rg2 > 0 && rload1 > 0 && rload2 > 0 && rsource >= 0)) {
         writeInvalid(out, s);
         continue;
       }
       let gm1: number, gm2: number, rp1: number, rp2: number;
       if (dcPerSample) {
-        predictor.predictInto(x);
-        if (solveStageBias(ctx, x, nominalValid, SAMPLE_STEP_TOL) !== 'ok') {
+        dcv[dc_rl1] = rl1;
+        dcv[dc_rl2] = rl2;
+        dcv[dc_rk] = rk;
+        dcv[dc_rt] = rt;
+        dcv[dc_perv1] = perv1;
+        dcv[dc_perv2] = perv2;
+        dcv[dc_mu1] = xmu1;
+        dcv[dc_mu2] = xmu2;
+        predictor.predictArr(dcv);
+        if (solveStageBiasArr(ctx, dcv, nominalValid, SAMPLE_STEP_TOL) !== 'ok') {
           writeInvalid(out, s);
           continue;
         }
@@ -163,46 +244,66 @@ export function createStageKernel(design: ResolvedDesign, options?: { dcPerSampl
         rp1 = 1 / bp.ga1;
         rp2 = 1 / bp.ga2;
       } else {
-        if (
-          !nominalValid ||
-          !(x.rl1 > 0 && x.rl2 > 0 && x.rk >= 0 && x.rt > 0 && x.perv1 > 0 && x.perv2 > 0)
-        ) {
+        if (!nominalValid || !(rl1 > 0 && rl2 > 0 && rk >= 0 && rt > 0 && perv1 > 0 && perv2 > 0)) {
           writeInvalid(out, s);
           continue;
         }
-        rp1 = 1 / (nb.ga1 * x.perv1);
-        rp2 = 1 / (nb.ga2 * x.perv2);
-        gm1 = ((nb.gm1 / nb.ga1) * x.mu1) / rp1;
-        gm2 = ((nb.gm2 / nb.ga2) * x.mu2) / rp2;
+        rp1 = 1 / (nb.ga1 * perv1);
+        rp2 = 1 / (nb.ga2 * perv2);
+        gm1 = ((nb.gm1 / nb.ga1) * xmu1) / rp1;
+        gm2 = ((nb.gm2 / nb.ga2) * xmu2) / rp2;
       }
       const src = dcPerSample ? bp : nb;
       const mu1 = gm1 * rp1;
       const mu2 = gm2 * rp2;
-      const g = stageGains(ctx, x, mu1, mu2, rp1, rp2);
-      o_a11[s] = g.a11;
-      o_a12[s] = g.a12;
-      o_a21[s] = g.a21;
-      o_a22[s] = g.a22;
-      o_gainDiff[s] = g.a11 - g.a12;
-      o_balanceDb[s] = 20 * Math.log10(Math.abs(g.a12) / Math.abs(g.a11));
-      o_zout1[s] = g.zout1;
-      o_zout2[s] = g.zout2;
-      o_zin[s] = g.zin;
-      const dm = 0.5 * (g.a11 - g.a12 - g.a21 + g.a22);
-      const cm = 0.5 * (g.a11 + g.a12 + g.a21 + g.a22);
+      v[ss_mu1] = mu1;
+      v[ss_mu2] = mu2;
+      v[ss_rp1] = rp1;
+      v[ss_rp2] = rp2;
+      v[ss_rl1] = rl1;
+      v[ss_rl2] = rl2;
+      v[ss_rk] = rk;
+      v[ss_rt] = rt;
+      v[ss_rg1] = rg1;
+      v[ss_rg2] = rg2;
+      v[ss_rload1] = rload1;
+      v[ss_rload2] = rload2;
+      v[ss_rsource] = rsource;
+      if (closedForm) closedFormGainsArr(v, g);
+      else reducedNodalGainsArr(capCoupled, leakToGrid1, v, g);
+      const a11 = g[g_a11];
+      const a12 = g[g_a12];
+      const a21 = g[g_a21];
+      const a22 = g[g_a22];
+      o_a11[s] = a11;
+      o_a12[s] = a12;
+      o_a21[s] = a21;
+      o_a22[s] = a22;
+      o_gainDiff[s] = a11 - a12;
+      o_balanceDb[s] = 20 * Math.log10(Math.abs(a12) / Math.abs(a11));
+      o_zout1[s] = g[g_zout1];
+      o_zout2[s] = g[g_zout2];
+      o_zin[s] = g[g_zin];
+      const dm = 0.5 * (a11 - a12 - a21 + a22);
+      const cm = 0.5 * (a11 + a12 + a21 + a22);
       o_gainDm[s] = dm;
       o_gainCm[s] = cm;
       o_cmrrDb[s] = 20 * Math.log10(Math.abs(dm) / Math.abs(cm));
-      o_ia1[s] = src.ia1;
-      o_ia2[s] = src.ia2;
-      o_va1[s] = src.va1;
-      o_va2[s] = src.va2;
-      o_vk[s] = src.vk;
+      const ia1 = src.ia1;
+      const ia2 = src.ia2;
+      const va1 = src.va1;
+      const va2 = src.va2;
+      const vk = src.vk;
+      o_ia1[s] = ia1;
+      o_ia2[s] = ia2;
+      o_va1[s] = va1;
+      o_va2[s] = va2;
+      o_vk[s] = vk;
       o_vgk1[s] = src.vgk1;
       o_vgk2[s] = src.vgk2;
-      o_pd1[s] = src.ia1 * (src.va1 - src.vk);
-      o_pd2[s] = src.ia2 * (src.va2 - src.vk);
-      o_vhk[s] = src.vk - heater;
+      o_pd1[s] = ia1 * (va1 - vk);
+      o_pd2[s] = ia2 * (va2 - vk);
+      o_vhk[s] = vk - heater;
       o_gm1[s] = gm1;
       o_gm2[s] = gm2;
       o_rp1[s] = rp1;
