@@ -15,16 +15,17 @@ const workerMain = new URL('../worker/main.ts', import.meta.url);
 const CHUNK = 2_000;
 let db: Db;
 let url: string;
+let drop: (() => Promise<void>) | undefined;
 const procs: SpawnedWorker[] = [];
 
 beforeAll(async () => {
-  ({ db, url } = await createTestDb('sigmatail_test_runprocesses'));
+  ({ db, url, drop } = await createTestDb('sigmatail_test_runprocesses'));
 });
 afterEach(async () => {
   await Promise.all(procs.splice(0).map((p) => p.kill('SIGKILL')));
 });
 afterAll(async () => {
-  await db?.destroy();
+  await drop?.();
 });
 
 async function startServer(): Promise<{ proc: SpawnedWorker; baseUrl: string }> {

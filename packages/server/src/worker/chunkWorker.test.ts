@@ -10,12 +10,13 @@ import { fakeJob, type FakeChunk } from './testing/fakeJob.js';
 const fakeTask = new URL('./testing/fakeChunkTask.ts', import.meta.url);
 let db: Db;
 let url: string;
+let drop: (() => Promise<void>) | undefined;
 
 beforeAll(async () => {
-  ({ db, url } = await createTestDb('sigmatail_test_chunkworker'));
+  ({ db, url, drop } = await createTestDb('sigmatail_test_chunkworker'));
 });
 afterAll(async () => {
-  await db?.destroy();
+  await drop?.();
 });
 
 async function waitForStatus(runId: string, want: string[], timeoutMs = 20_000): Promise<string> {

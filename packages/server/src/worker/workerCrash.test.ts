@@ -10,16 +10,17 @@ import { spawnWorker, type SpawnedWorker } from './testing/spawnWorker.js';
 const fakeMain = new URL('./testing/fakeWorkerMain.ts', import.meta.url);
 let db: Db;
 let url: string;
+let drop: (() => Promise<void>) | undefined;
 const spawned: SpawnedWorker[] = [];
 
 beforeAll(async () => {
-  ({ db, url } = await createTestDb('sigmatail_test_workercrash'));
+  ({ db, url, drop } = await createTestDb('sigmatail_test_workercrash'));
 });
 afterEach(async () => {
   await Promise.all(spawned.splice(0).map((w) => w.kill('SIGKILL')));
 });
 afterAll(async () => {
-  await db?.destroy();
+  await drop?.();
 });
 
 function startWorker(extra: Record<string, string> = {}): SpawnedWorker {

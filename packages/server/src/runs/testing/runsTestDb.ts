@@ -11,21 +11,36 @@ export function testDbUrl(name: string): string {
   return u.toString();
 }
 
-/**
- * A fresh, migrated database of its own for one test file: the worker processes a test spawns
- * see only that file's runs.
- */
-export async function createTestDb(name: string): Promise<{ db: Db; url: string }> {
-  const admin = new pg.Client({ connectionString: testDbUrl('postgres') });
-  await admin.connect();
+async function admin(sqlText: string): Promise<void> {
+  const client = new pg.Client({ connectionString: testDbUrl('postgres') });
+  await client.connect();
   try {
-    await admin.query(`drop database if exists "${name}" with (force)`);
-    await admin.query(`create database "${name}"`);
+    await client.query(sqlText);
   } finally {
-    await admin.end();
+    await client.end();
   }
+}
+
+/**
+ * A fresh, migrated database of its own for one test file (the worker processes a test spawns
+ * see only that file's runs). The name carries the process id, so two test runs on one cluster
+ * never drop each other's database. `drop` closes the handle and removes the database.
+ */
+export async function createTestDb(
+  prefix: string,
+): Promise<{ db: Db; url: string; drop: () => Promise<void> }> {
+  const name = `${prefix}_${process.pid}`;
+  await admin(`drop database if exists "${name}" with (force)`);
+  await admin(`create database "${name}"`);
   const url = testDbUrl(name);
   const db = createDb(url, { max: 6 });
   await migrateToLatest(db);
-  return { db, url };
+  return {
+    db,
+    url,
+    drop: async () => {
+      await db.destroy();
+      await admin(`drop database if exists "${name}" with (force)`);
+    },
+  };
 }
