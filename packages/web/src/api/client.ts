@@ -86,18 +86,6 @@ export async function request<T>(method: Method, path: string, body?: unknown): 
   return (text ? JSON.parse(text) : undefined) as T;
 }
 
-/** A text download (CSV export) fetched through the same error handling. */
-export async function requestText(path: string): Promise<string> {
-  let res: Response;
-  try {
-    res = await fetch(`/api${path}`, { credentials: 'same-origin' });
-  } catch {
-    throw new ApiError(0, 'Cannot reach the Sigmatail server. Check your connection and try again.');
-  }
-  if (!res.ok) throw await toApiError(res);
-  return res.text();
-}
-
 /** Parsed leading rows of a CSV download; the rest of the stream is abandoned. */
 export interface CsvSubset {
   columns: string[];
@@ -194,7 +182,6 @@ export const api = {
     launch: (launch: RunLaunch) => request<{ id: string }>('POST', '/runs', launch),
     cancel: (id: string) => request<{ run: RunView }>('POST', `/runs/${enc(id)}/cancel`),
     results: (id: string) => request<RunResultsBody>('GET', `/runs/${enc(id)}/results`),
-    exportCsv: (id: string) => requestText(`/runs/${enc(id)}/export.csv`),
     sampleHead: (id: string, maxRows: number) => requestCsvHead(`/runs/${enc(id)}/export.csv`, maxRows),
     csvUrl: (id: string) => `/api/runs/${enc(id)}/export.csv`,
     jsonUrl: (id: string) => `/api/runs/${enc(id)}/export.json`,

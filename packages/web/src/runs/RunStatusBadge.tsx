@@ -3,10 +3,8 @@ const TONE: Record<string, string> = {
   running: 'bg-glow-soft text-glow',
   merging: 'bg-glow-soft text-glow',
   done: 'bg-moss-soft text-moss',
-  completed: 'bg-moss-soft text-moss',
   failed: 'bg-brick-soft text-brick',
   cancelled: 'bg-paper text-dim',
-  canceled: 'bg-paper text-dim',
 };
 
 export function RunStatusBadge({ status }: { status: string }) {
