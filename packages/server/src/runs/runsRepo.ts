@@ -76,6 +76,15 @@ export async function findRun(db: DbOrTrx, workspaceId: string, id: string): Pro
   return r && present(r);
 }
 
+/** A run of any workspace with its workspace id (the caller checks access). */
+export async function findRunWithWorkspace(
+  db: DbOrTrx,
+  id: string,
+): Promise<{ view: RunView; workspaceId: string } | undefined> {
+  const r = await runsQuery(db).where('r.id', '=', id).executeTakeFirst();
+  return r && { view: present(r), workspaceId: r.workspace_id };
+}
+
 export async function listRuns(
   db: DbOrTrx,
   workspaceId: string,

@@ -9,7 +9,15 @@ import { notifyRuns } from '../worker/runsChannel.js';
 import { launchRun } from './launchRun.js';
 import { buildOpenApi } from './openApi/buildOpenApi.js';
 import { launchRunBody, listRunsQuery, type RunView } from './runSchemas.js';
-import { cancelRun, findResultsText, findRun, findRunDesign, listRuns } from './runsRepo.js';
+import {
+  cancelRun,
+  findResultsText,
+  findRun,
+  findRunDesign,
+  findRunWithWorkspace,
+  listRuns,
+} from './runsRepo.js';
+import { RunViewCache } from './runViewCache.js';
 import { streamSamplesCsv } from './streamSamplesCsv.js';
 
 const LAUNCHERS = ['engineer', 'production'] as const; // and admin, who passes every check
@@ -48,8 +56,13 @@ export function createRunsRouter({ db }: AppDeps): Router {
     res.json({ runs: await listRuns(db, req.user!.workspaceId, listRunsQuery.parse(query)) });
   });
 
+  // Status polling is the hot read (every open run page polls it): served from a 250 ms cache.
+  const views = new RunViewCache();
   router.get('/runs/:id', requireAuth, async (req, res) => {
-    res.json({ run: await loadRun(req) });
+    const id = uuidParam(req, 'id', 'run');
+    const run = await views.get(req.user!.workspaceId, id, () => findRunWithWorkspace(db, id));
+    if (!run) throw new HttpError(404, 'run not found');
+    res.json({ run });
   });
 
   router.post('/runs/:id/cancel', requireRole(...LAUNCHERS), async (req, res) => {
@@ -57,6 +70,7 @@ export function createRunsRouter({ db }: AppDeps): Router {
     if (!(await cancelRun(db, req.user!.workspaceId, run.id))) {
       throw new HttpError(409, `run is already ${run.status}`);
     }
+    views.forget(run.id);
     await notifyRuns(db, 'changed', run.id);
     await audit(req, 'run.cancel', run.id, { status: run.status, progress: run.progress });
     res.json({ run: await loadRun(req) });

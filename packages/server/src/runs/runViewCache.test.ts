@@ -1,0 +1,29 @@
+import { describe, expect, it, vi } from 'vitest';
+import type { RunView } from './runSchemas.js';
+import { RunViewCache } from './runViewCache.js';
+
+const view = (status: RunView['status']) => ({ id: 'r1', status }) as RunView;
+
+describe('RunViewCache', () => {
+  it('serves a view for ttl, then reloads; never across workspaces; forget reloads at once', async () => {
+    vi.useFakeTimers();
+    try {
+      const cache = new RunViewCache(250);
+      const load = vi.fn(async () => ({ view: view('running'), workspaceId: 'w1' }));
+      expect(await cache.get('w1', 'r1', load)).toEqual(view('running'));
+      expect(await cache.get('w1', 'r1', load)).toEqual(view('running'));
+      expect(load).toHaveBeenCalledTimes(1);
+      expect(await cache.get('w2', 'r1', load)).toBeUndefined(); // another workspace: not found
+      vi.advanceTimersByTime(250);
+      load.mockResolvedValueOnce({ view: view('done'), workspaceId: 'w1' });
+      expect(await cache.get('w1', 'r1', load)).toEqual(view('done'));
+      expect(load).toHaveBeenCalledTimes(2);
+      cache.forget('r1');
+      await cache.get('w1', 'r1', load);
+      expect(load).toHaveBeenCalledTimes(3);
+      expect(await cache.get('w1', 'missing', async () => undefined)).toBeUndefined();
+    } finally {
+      vi.useRealTimers();
+    }
+  });
+});
