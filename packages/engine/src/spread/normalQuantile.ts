@@ -42,15 +42,20 @@ export function normalQuantile(p: number): number {
       (((((B0 * r + B1) * r + B2) * r + B3) * r + B4) * r + 1)
     );
   }
-  normalQuantileTailInto(p);
+  TAIL[0] = p;
+  normalQuantileTailInPlace();
   return TAIL[0];
 }
 
-/** Result slot of the tail function: returning through a typed array avoids a heap number. */
+/**
+ * Argument and result slot of the tail function: passing a double through a typed array rather
+ * than as an argument or return value avoids a heap number per call when the call is not inlined.
+ */
 const TAIL = new Float64Array(1);
 
-/** Tails of normalQuantile (p <= 0.02425 or p >= 0.97575, and the edge cases), into TAIL[0]. */
-function normalQuantileTailInto(p: number): void {
+/** Tails of normalQuantile (p <= 0.02425 or p >= 0.97575, and the edge cases): TAIL[0] = Φ⁻¹(TAIL[0]). */
+function normalQuantileTailInPlace(): void {
+  const p = TAIL[0];
   if (p > 0 && p <= P_LOW) {
     const q = Math.sqrt(-2 * Math.log(p));
     TAIL[0] =

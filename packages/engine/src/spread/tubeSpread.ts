@@ -104,9 +104,30 @@ export function fillTubeInPlace(
   // Second pass in sample order, so the redraw stream is consumed deterministically. Kept out of
   // the first loop so that loop has no rarely-taken branch (which would deoptimise it).
   for (let s = 0; s < n; s++) {
-    if (sectionsPaired(t, o1[s], o2[s], o3[s], o4[s])) continue;
+    if (pairedAt(t, o1, o2, o3, o4, s)) continue;
     redrawEnvelope(t, redraw, out, s, tally);
   }
+}
+
+/**
+ * sectionsPaired for sample s of the four multiplier columns. Columns and index as arguments, not
+ * the four doubles: a non-inlined call would box each double argument (a heap number per sample).
+ */
+function pairedAt(
+  t: TubeSpreadModel,
+  perv1: Float64Array,
+  perv2: Float64Array,
+  mu1: Float64Array,
+  mu2: Float64Array,
+  s: number,
+): boolean {
+  const pr = t.pairing;
+  if (pr === null) return true;
+  let ratio: number;
+  if (pr.quantity === 'mu') ratio = mu1[s] / mu2[s];
+  else if (pr.quantity === 'ia') ratio = perv1[s] / perv2[s];
+  else ratio = Math.pow(perv1[s] / perv2[s], 2 / 3);
+  return Math.abs(ratio - 1) <= pr.within;
 }
 
 /** In place: one quantity's section multipliers from two uniform columns (null = no spread). */
@@ -159,7 +180,7 @@ function redrawEnvelope(
     out.perv2[s] = p2;
     out.mu1[s] = m1;
     out.mu2[s] = m2;
-    if (sectionsPaired(t, p1, p2, m1, m2)) return;
+    if (pairedAt(t, out.perv1, out.perv2, out.mu1, out.mu2, s)) return;
   }
   tally.failures++;
 }
