@@ -1,6 +1,13 @@
 import crypto from 'node:crypto';
 import type { Database } from '@sigmatail/db';
-import { chunkCount, DEFAULT_CHUNK_SIZE, ENGINE_VERSION, parseDesign, type RunPlan } from '@sigmatail/engine';
+import {
+  chunkCount,
+  DEFAULT_CHUNK_SIZE,
+  ENGINE_VERSION,
+  parseDesign,
+  runDesignIssues,
+  type RunPlan,
+} from '@sigmatail/engine';
 import type { Kysely } from 'kysely';
 import { recordAudit } from '../audit/recordAudit.js';
 import type { SessionUser } from '../auth/requireRole.js';
@@ -43,14 +50,14 @@ export async function launchRun(
     .where('rev', '=', revision)
     .executeTakeFirst();
   if (!rev) throw new HttpError(404, `design has no revision ${revision}`, 'revision');
+  // Stored revisions passed the schema, but some spreads only fail when the engine sets them up
+  // (e.g. a binned part's inner band wider than its tolerance): refuse now, not in a worker.
   const parsed = parseDesign(rev.document);
-  if (!parsed.ok) {
-    const e = parsed.errors[0];
-    throw new HttpError(
-      422,
-      `revision ${revision} cannot run: ${e ? `${e.path}: ${e.message}` : 'invalid'}`,
-      'revision',
-    );
+  const issues = parsed.ok ? runDesignIssues(parsed.design) : parsed.errors;
+  if (!parsed.ok || issues.length > 0) {
+    const e = issues[0];
+    const message = `revision ${revision} cannot run: ${e ? `${e.path}: ${e.message}` : 'invalid design'}`;
+    throw new HttpError(422, message, 'revision', issues);
   }
   const plan: RunPlan = {
     samples: body.samples,

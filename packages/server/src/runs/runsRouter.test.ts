@@ -72,6 +72,19 @@ describe('runs API', () => {
     expect((await viewer.post('/api/runs', { ...SMALL, designId })).status).toBe(403);
   });
 
+  it('refuses a revision the engine cannot set up, naming the part, before anything is queued', async () => {
+    const doc = exampleDesign() as { parts: Record<string, unknown> };
+    doc.parts.rt = { value: '10k', tolerance: 5, spread: { kind: 'normal', k: 20 } }; // k beyond what the engine samples
+    const created = await engineer.post('/api/designs', { document: doc });
+    expect(created.status).toBe(201);
+    const res = await engineer.post('/api/runs', { ...SMALL, designId: created.body.design.id });
+    expect(res.status).toBe(422);
+    expect(res.body.error.field).toBe('revision');
+    expect(res.body.error.message).toMatch(/parts\.rt\.spread\.k/);
+    const runs = await engineer.get(`/api/runs?designId=${created.body.design.id}`);
+    expect(runs.body.runs).toEqual([]);
+  });
+
   it('launches, reports progress, stores results equal to the engine run directly, and exports', async () => {
     const launched = await production.post('/api/runs', { ...SMALL, designId });
     expect(launched.status).toBe(202);
