@@ -8,7 +8,8 @@ import { metricInfo, PLOTTABLE } from './metricInfo.js';
 /** One histogram per specified metric, plus any others the reader adds. */
 export function MetricHistograms({ results, runId }: { results: RunResults; runId: string }) {
   const specMetrics = [...new Set(results.specs.map((s) => s.metric))];
-  const [extra, setExtra] = useState<string[]>(specMetrics.length ? [] : ['gainDiff', 'balanceDb']);
+  // Gain and balance are always worth a look, specified or not.
+  const [extra, setExtra] = useState<string[]>(['gainDiff', 'balanceDb']);
   const shown = [...specMetrics, ...extra.filter((m) => !specMetrics.includes(m))];
   const addable = PLOTTABLE.filter((m) => !shown.includes(m) && results.metrics[m]);
   return (
