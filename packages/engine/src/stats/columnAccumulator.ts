@@ -52,20 +52,56 @@ export function resetColumnAccumulator(a: ColumnAccumulator): void {
 
 /**
  * In place: adds col[0..n) to the accumulator. Non-finite values (no bias point) are skipped.
+ * A block holding one repeated value equal to the shift (a metric that does not vary, e.g. the
+ * bias point when only the small signal is drawn per sample) is added in one step: its deviations
+ * are exactly 0, so the sums, extremes and counts come out bit for bit as the sample loop's.
  *
  * @example accumulateColumnInPlace(acc, out[m], 4096)
  */
 export function accumulateColumnInPlace(a: ColumnAccumulator, col: Float64Array, n: number): void {
-  let { count, shift, s1, s2, min, max, under, over } = a;
+  let s = 0;
+  if (a.count === 0) {
+    // The first finite value becomes the shift. x − x is 0 exactly for finite x, NaN for NaN and ±Infinity.
+    while (s < n && col[s] - col[s] !== 0) s++;
+    if (s === n) return;
+    a.shift = col[s];
+  }
+  if (s === n) return;
+  const x0 = col[s];
+  let same = s + 1;
+  while (same < n && col[same] === x0) same++;
+  if (same === n && x0 - a.shift === 0) addRepeatedInPlace(a, x0, n - s);
+  else accumulateRangeInPlace(a, col, s, n);
+}
+
+/** In place: adds k copies of x, where x − shift is exactly 0 (so s1 and s2 do not change). */
+function addRepeatedInPlace(a: ColumnAccumulator, x: number, k: number): void {
+  a.count += k;
+  if (x < a.min) a.min = x;
+  if (x > a.max) a.max = x;
+  const b = (x - a.grid.lo) * (1 / a.grid.width);
+  if (b < 0) a.under += k;
+  else if (b >= a.grid.bins) a.over += k;
+  else a.bins[b | 0] += k;
+}
+
+/** In place: adds col[from..n) sample by sample; the shift is already set. */
+function accumulateRangeInPlace(a: ColumnAccumulator, col: Float64Array, from: number, n: number): void {
+  const shift = a.shift;
+  let count = a.count;
+  let s1 = a.s1;
+  let s2 = a.s2;
+  let min = a.min;
+  let max = a.max;
+  let under = a.under;
+  let over = a.over;
   const bins = a.bins;
   const lo = a.grid.lo;
   const inv = 1 / a.grid.width;
   const nb = a.grid.bins;
-  for (let s = 0; s < n; s++) {
+  for (let s = from; s < n; s++) {
     const x = col[s];
-    // x − x is 0 exactly for finite x, NaN for NaN and ±Infinity.
     if (x - x !== 0) continue;
-    if (count === 0) shift = x;
     count++;
     const dx = x - shift;
     s1 += dx;
@@ -78,7 +114,14 @@ export function accumulateColumnInPlace(a: ColumnAccumulator, col: Float64Array,
     else if (b >= nb) over++;
     else bins[b | 0]++;
   }
-  Object.assign(a, { count, shift, s1, s2, min, max, under, over });
+  // Plain field writes: no temporary object per call.
+  a.count = count;
+  a.s1 = s1;
+  a.s2 = s2;
+  a.min = min;
+  a.max = max;
+  a.under = under;
+  a.over = over;
 }
 
 /** The chunk statistics as plain JSON (see MetricChunk). */
