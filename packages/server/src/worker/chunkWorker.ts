@@ -194,6 +194,8 @@ export class ChunkWorker {
     if (!ctx) {
       ctx = await this.store.context(runId);
       if (!ctx) throw new Error(`run ${runId} not found`);
+      // Runs merged by other workers never tell this one they ended: bound the cache instead.
+      if (this.contexts.size >= 64) this.contexts.clear();
       this.contexts.set(runId, ctx);
     }
     return ctx;
