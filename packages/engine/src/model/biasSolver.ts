@@ -1,4 +1,4 @@
-import { korenPointInto, type KorenParams, type TriodePoint } from '../tubes/korenTriode.js';
+import { korenPointArr, type KorenParams } from '../tubes/korenTriode.js';
 
 /** Why a bias point is not usable. 'ok' means a valid point was found. */
 export type BiasStatus =
@@ -88,11 +88,28 @@ export function createBiasPoint(): BiasPoint {
   };
 }
 
-const p1: TriodePoint = { ia: 0, gm: 0, ga: 0 };
-const p2: TriodePoint = { ia: 0, gm: 0, ga: 0 };
+/**
+ * Scratch of the solve. Per-sample doubles travel through these slots, not through arguments,
+ * return values or object fields: a double passed to or returned from a call the optimiser does
+ * not inline is boxed (a heap number per call). T: the two sections' triode evaluations
+ * (korenPointArr layout: Vpk, Vgk, scale, mu scale, then Ia, gm, ga), section 1 from 0, section 2
+ * from 8. X: the plate currents (A) handed to evalAt and finish.
+ */
+const T = new Float64Array(16);
+const X = new Float64Array(2);
+const S1 = 0;
+const S2 = 8;
+const IA1 = S1 + 4;
+const GM1 = S1 + 5;
+const GA1 = S1 + 6;
+const IA2 = S2 + 4;
+const GM2 = S2 + 5;
+const GA2 = S2 + 6;
 
-/** Evaluates both sections at (ia1, ia2) into p1, p2 and the voltages into bp. */
-function evalAt(c: BiasCircuit, ia1: number, ia2: number, bp: BiasPoint): void {
+/** Evaluates both sections at the currents (X[0], X[1]) into T and the voltages into bp. */
+function evalAt(c: BiasCircuit, bp: BiasPoint): void {
+  const ia1 = X[0];
+  const ia2 = X[1];
   const i = ia1 + ia2;
   const vj = c.tail + i * c.rt;
   const vk = vj + i * c.rk;
@@ -104,8 +121,16 @@ function evalAt(c: BiasCircuit, ia1: number, ia2: number, bp: BiasPoint): void {
   bp.va2 = c.bPlus - ia2 * c.rl2;
   bp.vgk1 = vg1 - vk;
   bp.vgk2 = vg2 - vk;
-  korenPointInto(c.tube, bp.va1 - vk, bp.vgk1, c.perv1, c.muScale1, p1);
-  korenPointInto(c.tube, bp.va2 - vk, bp.vgk2, c.perv2, c.muScale2, p2);
+  T[S1] = bp.va1 - vk;
+  T[S1 + 1] = bp.vgk1;
+  T[S1 + 2] = c.perv1;
+  T[S1 + 3] = c.muScale1;
+  T[S2] = bp.va2 - vk;
+  T[S2 + 1] = bp.vgk2;
+  T[S2 + 2] = c.perv2;
+  T[S2 + 3] = c.muScale2;
+  korenPointArr(c.tube, T, S1);
+  korenPointArr(c.tube, T, S2);
 }
 
 /**
@@ -122,24 +147,34 @@ function evalAt(c: BiasCircuit, ia1: number, ia2: number, bp: BiasPoint): void {
  * solveBiasInto(circuit, bp, false); // 'ok'; bp.ia1 ≈ 1.3e-3 A for the guitar example's 12AX7 pair
  */
 export function solveBiasInto(c: BiasCircuit, bp: BiasPoint, warm: boolean, stepTol = 1e-12): BiasStatus {
-  if (!partsValid(c)) return finish(c, bp, 'invalid-parts', 0, 0, 0);
+  if (!partsValid(c)) {
+    X[0] = 0;
+    X[1] = 0;
+    return finish(c, bp, 'invalid-parts', 0);
+  }
   const span = c.bPlus - c.tail;
-  if (!(span > 0) || !(c.bPlus > 0)) return finish(c, bp, 'supply-too-low', 0, 0, 0);
+  if (!(span > 0) || !(c.bPlus > 0)) {
+    X[0] = 0;
+    X[1] = 0;
+    return finish(c, bp, 'supply-too-low', 0);
+  }
   const rkk = c.rk + c.rt;
   const rg = c.capCoupled ? c.rk : rkk;
   const max1 = span / (c.rl1 + rkk);
   const max2 = span / (c.rl2 + rkk);
   let x1 = warm && bp.ia1 > 0 && bp.ia1 < max1 ? bp.ia1 : 0.3 * max1;
   let x2 = warm && bp.ia2 > 0 && bp.ia2 < max2 ? bp.ia2 : 0.3 * max2;
-  evalAt(c, x1, x2, bp);
-  let f1 = x1 - p1.ia;
-  let f2 = x2 - p2.ia;
+  X[0] = x1;
+  X[1] = x2;
+  evalAt(c, bp);
+  let f1 = x1 - T[IA1];
+  let f2 = x2 - T[IA2];
   let norm = Math.abs(f1) + Math.abs(f2);
   for (let it = 1; it <= 60; it++) {
-    const j11 = 1 + p1.ga * (c.rl1 + rkk) + p1.gm * rg;
-    const j12 = p1.ga * rkk + p1.gm * rg;
-    const j21 = p2.ga * rkk + p2.gm * rg;
-    const j22 = 1 + p2.ga * (c.rl2 + rkk) + p2.gm * rg;
+    const j11 = 1 + T[GA1] * (c.rl1 + rkk) + T[GM1] * rg;
+    const j12 = T[GA1] * rkk + T[GM1] * rg;
+    const j21 = T[GA2] * rkk + T[GM2] * rg;
+    const j22 = 1 + T[GA2] * (c.rl2 + rkk) + T[GM2] * rg;
     const det = j11 * j22 - j12 * j21;
     const d1 = (f1 * j22 - f2 * j12) / det;
     const d2 = (j11 * f2 - j21 * f1) / det;
@@ -148,7 +183,9 @@ export function solveBiasInto(c: BiasCircuit, bp: BiasPoint, warm: boolean, step
     // gm and rp come from the last evaluation and are off by a relative ~stepTol at most. The
     // kernel passes 1e-6 (far below any part tolerance; saves one evaluation per sample).
     if (Math.abs(d1) <= stepTol * x1 + 1e-18 && Math.abs(d2) <= stepTol * x2 + 1e-18) {
-      return finish(c, bp, 'ok', it, x1 - d1, x2 - d2);
+      X[0] = x1 - d1;
+      X[1] = x2 - d2;
+      return finish(c, bp, 'ok', it);
     }
     // Backtracking on |F1| + |F2|: the Newton direction always descends it (F is monotone), so
     // this cannot cycle the way a bare Newton step does between cut-off and saturation.
@@ -163,16 +200,22 @@ export function solveBiasInto(c: BiasCircuit, bp: BiasPoint, warm: boolean, step
       else if (n1 > max1) n1 = 0.5 * (x1 + max1);
       if (n2 < 0) n2 = 0.5 * x2;
       else if (n2 > max2) n2 = 0.5 * (x2 + max2);
-      evalAt(c, n1, n2, bp);
-      f1 = n1 - p1.ia;
-      f2 = n2 - p2.ia;
+      X[0] = n1;
+      X[1] = n2;
+      evalAt(c, bp);
+      f1 = n1 - T[IA1];
+      f2 = n2 - T[IA2];
       if (Math.abs(f1) + Math.abs(f2) <= (1 - 1e-4 * t) * norm) break;
       t *= 0.5;
     }
     norm = Math.abs(f1) + Math.abs(f2);
     x1 = n1;
     x2 = n2;
-    if (norm <= 1e-15 * (x1 + x2)) return finish(c, bp, 'ok', it, p1.ia, p2.ia);
+    if (norm <= 1e-15 * (x1 + x2)) {
+      X[0] = T[IA1];
+      X[1] = T[IA2];
+      return finish(c, bp, 'ok', it);
+    }
   }
   return bisect(c, bp, max1, max2);
 }
@@ -183,8 +226,10 @@ function innerIa1(c: BiasCircuit, bp: BiasPoint, ia2: number, max1: number): num
   let hi = max1;
   for (let k = 0; k < 80 && hi - lo > 1e-15 * hi; k++) {
     const m = 0.5 * (lo + hi);
-    evalAt(c, m, ia2, bp);
-    if (m - p1.ia > 0) hi = m;
+    X[0] = m;
+    X[1] = ia2;
+    evalAt(c, bp);
+    if (m - T[IA1] > 0) hi = m;
     else lo = m;
   }
   return 0.5 * (lo + hi);
@@ -199,9 +244,17 @@ function innerIa1(c: BiasCircuit, bp: BiasPoint, ia2: number, max1: number): num
  * solveBiasBracketedInto(circuit, createBiasPoint()); // same point as solveBiasInto
  */
 export function solveBiasBracketedInto(c: BiasCircuit, bp: BiasPoint): BiasStatus {
-  if (!partsValid(c)) return finish(c, bp, 'invalid-parts', 0, 0, 0);
+  if (!partsValid(c)) {
+    X[0] = 0;
+    X[1] = 0;
+    return finish(c, bp, 'invalid-parts', 0);
+  }
   const span = c.bPlus - c.tail;
-  if (!(span > 0) || !(c.bPlus > 0)) return finish(c, bp, 'supply-too-low', 0, 0, 0);
+  if (!(span > 0) || !(c.bPlus > 0)) {
+    X[0] = 0;
+    X[1] = 0;
+    return finish(c, bp, 'supply-too-low', 0);
+  }
   const rkk = c.rk + c.rt;
   return bisect(c, bp, span / (c.rl1 + rkk), span / (c.rl2 + rkk));
 }
@@ -212,15 +265,21 @@ function bisect(c: BiasCircuit, bp: BiasPoint, max1: number, max2: number): Bias
   for (let k = 0; k < 80 && hi - lo > 1e-15 * hi; k++) {
     const m = 0.5 * (lo + hi);
     const x1 = innerIa1(c, bp, m, max1);
-    evalAt(c, x1, m, bp);
-    if (m - p2.ia > 0) hi = m;
+    X[0] = x1;
+    X[1] = m;
+    evalAt(c, bp);
+    if (m - T[IA2] > 0) hi = m;
     else lo = m;
   }
   const x2 = 0.5 * (lo + hi);
   const x1 = innerIa1(c, bp, x2, max1);
-  evalAt(c, x1, x2, bp);
-  const ok = Math.abs(x1 - p1.ia) <= 1e-9 * (x1 + 1e-9) && Math.abs(x2 - p2.ia) <= 1e-9 * (x2 + 1e-9);
-  return finish(c, bp, ok ? 'ok' : 'no-convergence', 999, p1.ia, p2.ia);
+  X[0] = x1;
+  X[1] = x2;
+  evalAt(c, bp);
+  const ok = Math.abs(x1 - T[IA1]) <= 1e-9 * (x1 + 1e-9) && Math.abs(x2 - T[IA2]) <= 1e-9 * (x2 + 1e-9);
+  X[0] = T[IA1];
+  X[1] = T[IA2];
+  return finish(c, bp, ok ? 'ok' : 'no-convergence', 999);
 }
 
 /** Resistances positive (Rk may be 0) and finite, multipliers positive; NaN fails every test. */
@@ -246,17 +305,12 @@ function classify(bp: BiasPoint): BiasStatus {
 }
 
 /**
- * Records the result: voltages recomputed for the final currents ia1, ia2 (gm, rp from the last
+ * Records the result: voltages recomputed for the final currents (X[0], X[1]) (gm, rp from the last
  * evaluation); a converged ('ok') point is then classified (grid current, cut-off, bottomed plate).
  */
-function finish(
-  c: BiasCircuit,
-  bp: BiasPoint,
-  status: BiasStatus,
-  it: number,
-  ia1: number,
-  ia2: number,
-): BiasStatus {
+function finish(c: BiasCircuit, bp: BiasPoint, status: BiasStatus, it: number): BiasStatus {
+  const ia1 = X[0];
+  const ia2 = X[1];
   bp.status = status;
   bp.iterations = it;
   if (status === 'supply-too-low' || status === 'invalid-parts') {
@@ -272,10 +326,10 @@ function finish(
   bp.va2 = c.bPlus - ia2 * c.rl2;
   bp.vgk1 = (c.capCoupled ? bp.vj : c.vg1) - bp.vk;
   bp.vgk2 = (c.capCoupled ? bp.vj : c.vg2) - bp.vk;
-  bp.gm1 = p1.gm;
-  bp.gm2 = p2.gm;
-  bp.ga1 = p1.ga;
-  bp.ga2 = p2.ga;
+  bp.gm1 = T[GM1];
+  bp.gm2 = T[GM2];
+  bp.ga1 = T[GA1];
+  bp.ga2 = T[GA2];
   if (status === 'ok') bp.status = classify(bp);
   return bp.status;
 }
