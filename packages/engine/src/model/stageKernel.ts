@@ -155,6 +155,10 @@ export function createStageKernel(design: ResolvedDesign, options?: { dcPerSampl
   const dc_rl1 = DC_RL1;
   const dc_rl2 = DC_RL2;
   const dc_rt = DC_RT;
+  // The per-sample calls, bound once for the same reason.
+  const nodalGains = reducedNodalGainsArr;
+  const closedGains = closedFormGainsArr;
+  const solveBias = solveStageBiasArr;
 
   function evaluate(inputs: readonly Float64Array[], n: number, out: readonly Float64Array[]): void {
     const bp = ctx.bp;
@@ -235,7 +239,7 @@ export function createStageKernel(design: ResolvedDesign, options?: { dcPerSampl
         dcv[dc_mu1] = xmu1;
         dcv[dc_mu2] = xmu2;
         predictor.predictArr(dcv);
-        if (solveStageBiasArr(ctx, dcv, nominalValid, SAMPLE_STEP_TOL) !== 'ok') {
+        if (solveBias(ctx, dcv, nominalValid, SAMPLE_STEP_TOL) !== 'ok') {
           writeInvalid(out, s);
           continue;
         }
@@ -269,8 +273,8 @@ export function createStageKernel(design: ResolvedDesign, options?: { dcPerSampl
       v[ss_rload1] = rload1;
       v[ss_rload2] = rload2;
       v[ss_rsource] = rsource;
-      if (closedForm) closedFormGainsArr(v, g);
-      else reducedNodalGainsArr(capCoupled, leakToGrid1, v, g);
+      if (closedForm) closedGains(v, g);
+      else nodalGains(capCoupled, leakToGrid1, v, g);
       const a11 = g[g_a11];
       const a12 = g[g_a12];
       const a21 = g[g_a21];
