@@ -1,0 +1,76 @@
+import { describe, expect, it } from 'vitest';
+import {
+  accumulateColumnInPlace,
+  columnAccumulatorResult,
+  createColumnAccumulator,
+} from './columnAccumulator.js';
+import { gridFromRange, type HistogramGrid } from './histogramGrid.js';
+import type { MetricChunk } from './metricChunk.js';
+
+/** The plain per-sample definition (shift = first finite value), to hold the fast paths to. */
+function reference(x: readonly number[], grid: HistogramGrid): MetricChunk {
+  let count = 0;
+  let shift = NaN;
+  let s1 = 0;
+  let s2 = 0;
+  let min = Infinity;
+  let max = -Infinity;
+  let under = 0;
+  let over = 0;
+  const bins = new Uint32Array(grid.bins);
+  for (const v of x) {
+    if (!Number.isFinite(v)) continue;
+    if (count === 0) shift = v;
+    count++;
+    s1 += v - shift;
+    s2 += (v - shift) * (v - shift);
+    min = Math.min(min, v);
+    max = Math.max(max, v);
+    const b = (v - grid.lo) * (1 / grid.width);
+    if (b < 0) under++;
+    else if (b >= grid.bins) over++;
+    else bins[Math.floor(b)]++;
+  }
+  const acc = createColumnAccumulator(grid);
+  Object.assign(acc, { count, shift, s1, s2, min, max, under, over });
+  acc.bins.set(bins);
+  return columnAccumulatorResult(acc);
+}
+
+function fedInBlocks(blocks: number[][], grid: HistogramGrid): MetricChunk {
+  const acc = createColumnAccumulator(grid);
+  for (const b of blocks) accumulateColumnInPlace(acc, Float64Array.from(b), b.length);
+  return columnAccumulatorResult(acc);
+}
+
+describe('accumulateColumnInPlace', () => {
+  const grid = gridFromRange(1, 3);
+  const cases: Record<string, number[][]> = {
+    'blocks of one repeated value (added in one step)': [
+      [2, 2, 2, 2],
+      [2, 2, 2],
+    ],
+    'a leading non-finite value, then a repeated value': [[NaN, 2.5, 2.5, 2.5], [2.5]],
+    'a repeated block that differs from the shift': [
+      [2, 2.25, 2],
+      [2.75, 2.75, 2.75],
+    ],
+    'repeated values outside the grid': [[9, 9, 9], [-4, -4], [9]],
+    'a repeated value, then a varying block with a gap': [
+      [1.5, 1.5],
+      [1.25, NaN, Infinity, 2.9, 1.5],
+    ],
+    'only non-finite values': [[NaN, NaN], [-Infinity]],
+    'an empty block': [[], [2, 2], []],
+  };
+  for (const [name, blocks] of Object.entries(cases)) {
+    it(`matches the per-sample definition bit for bit: ${name}`, () => {
+      expect(fedInBlocks(blocks, grid)).toEqual(reference(blocks.flat(), grid));
+    });
+  }
+
+  it('a repeated value counts every sample in its bin with zero spread', () => {
+    const r = fedInBlocks([[2, 2, 2, 2, 2]], grid);
+    expect(r).toMatchObject({ count: 5, mean: 2, m2: 0, min: 2, max: 2, under: 0, over: 0, bins: [5] });
+  });
+});
