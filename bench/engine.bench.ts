@@ -33,6 +33,28 @@ function sampledInputs(setup: RunSetup, n: number): Float64Array[] {
   return inputs;
 }
 
+/**
+ * Heap bytes the kernel allocates per sample: heap growth over one 2048-sample block right after a
+ * full gc, averaged over blocks (a block allocating less than the young generation cannot trigger a
+ * collection part-way, which would hide the growth). 'n/a' without --expose-gc.
+ */
+function kernelBytesPerSample(kernel: RunSetup['model']['kernel'], inputs: Float64Array[]): string {
+  const gcNow = (globalThis as { gc?: () => void }).gc;
+  if (!gcNow) return 'n/a';
+  const b = 2048;
+  const ins = inputs.map((c) => c.subarray(0, b));
+  const outs = kernel.metrics.map(() => new Float64Array(b));
+  let bytes = 0;
+  const reps = 20;
+  for (let r = 0; r < reps; r++) {
+    gcNow();
+    const h0 = process.memoryUsage().heapUsed;
+    kernel.evaluate(ins, b, outs);
+    bytes += process.memoryUsage().heapUsed - h0;
+  }
+  return (bytes / (reps * b)).toFixed(1);
+}
+
 const rows: Record<string, string | number>[] = [];
 for (const dcPerSample of [false, true]) {
   const setup = designSetup(design, { dcPerSample });
@@ -69,6 +91,7 @@ for (const dcPerSample of [false, true]) {
     case: dcPerSample ? '(b) DC point per sample' : '(a) small signal only',
     'kernel M/s (cpu)': +kernelRate.toFixed(3),
     'kernel M/s (wall best/median)': `${mega(N, k.best).toFixed(2)} / ${mega(N, k.median).toFixed(2)}`,
+    'kernel heap B/sample': kernelBytesPerSample(kernel, inputs),
     'full chunk M/s (cpu)': +mega(N, c.cpu).toFixed(3),
     'full chunk M/s (wall best)': +mega(N, c.best).toFixed(3),
     'MNA baseline M/s (cpu)': +baseRate.toFixed(4),
