@@ -4,7 +4,9 @@ import { api } from '../api/client.js';
 import { adminQueries } from '../api/queries/adminQueries.js';
 import { ROLES, type Role } from '../api/types.js';
 import { ErrorNote } from '../components/QueryState.js';
-import { Button, inputClass, labelClass, Panel } from '../components/ui.js';
+import { Field } from '../components/Field.js';
+import { TextField } from '../components/TextField.js';
+import { Button, inputClass, Panel } from '../components/ui.js';
 
 export function InvitePanel() {
   const qc = useQueryClient();
@@ -23,23 +25,16 @@ export function InvitePanel() {
           invite.mutate();
         }}
       >
-        <div className="min-w-64 flex-1">
-          <label htmlFor="invite-email" className={labelClass}>
-            Email
-          </label>
-          <input
-            id="invite-email"
-            type="email"
-            required
-            className={inputClass}
-            value={email}
-            onChange={(e) => setEmail(e.target.value)}
-          />
-        </div>
-        <div>
-          <label htmlFor="invite-role" className={labelClass}>
-            Role
-          </label>
+        <TextField
+          id="invite-email"
+          label="Email"
+          className="min-w-64 flex-1"
+          type="email"
+          required
+          value={email}
+          onChange={(e) => setEmail(e.target.value)}
+        />
+        <Field id="invite-role" label="Role">
           <select
             id="invite-role"
             className={inputClass}
@@ -50,7 +45,7 @@ export function InvitePanel() {
               <option key={r}>{r}</option>
             ))}
           </select>
-        </div>
+        </Field>
         <Button tone="primary" type="submit" disabled={invite.isPending}>
           Send invite
         </Button>

@@ -6,7 +6,9 @@ import { workspaceQueries } from '../api/queries/workspaceQueries.js';
 import { authQueries } from '../api/queries/authQueries.js';
 import type { SamplingPlan, Workspace } from '../api/types.js';
 import { ErrorNote, Loading } from '../components/QueryState.js';
-import { Button, inputClass, labelClass, Panel } from '../components/ui.js';
+import { Field } from '../components/Field.js';
+import { TextField } from '../components/TextField.js';
+import { Button, inputClass, Panel } from '../components/ui.js';
 
 /** Workspace name and the defaults new runs start from. */
 export function WorkspacePanel() {
@@ -49,34 +51,23 @@ function WorkspaceForm({ workspace }: { workspace: Workspace }) {
         save.mutate();
       }}
     >
-      <div className="sm:col-span-2">
-        <label htmlFor="ws-name" className={labelClass}>
-          Workspace name
-        </label>
-        <input
-          id="ws-name"
-          required
-          className={inputClass}
-          value={name}
-          onChange={(e) => setName(e.target.value)}
-        />
-      </div>
-      <div>
-        <label htmlFor="ws-samples" className={labelClass}>
-          Default samples per run (1 to {MAX_SAMPLES.toLocaleString('en-US')})
-        </label>
-        <input
-          id="ws-samples"
-          inputMode="numeric"
-          className={`${inputClass} num`}
-          value={samples}
-          onChange={(e) => setSamples(e.target.value)}
-        />
-      </div>
-      <div>
-        <label htmlFor="ws-plan" className={labelClass}>
-          Default sampling plan
-        </label>
+      <TextField
+        id="ws-name"
+        label="Workspace name"
+        className="sm:col-span-2"
+        required
+        value={name}
+        onChange={(e) => setName(e.target.value)}
+      />
+      <TextField
+        id="ws-samples"
+        label={<>Default samples per run (1 to {MAX_SAMPLES.toLocaleString('en-US')})</>}
+        numeric
+        inputMode="numeric"
+        value={samples}
+        onChange={(e) => setSamples(e.target.value)}
+      />
+      <Field id="ws-plan" label="Default sampling plan">
         <select
           id="ws-plan"
           className={inputClass}
@@ -87,19 +78,15 @@ function WorkspaceForm({ workspace }: { workspace: Workspace }) {
             <option key={p}>{p}</option>
           ))}
         </select>
-      </div>
-      <div>
-        <label htmlFor="ws-target" className={labelClass}>
-          Yield target (%)
-        </label>
-        <input
-          id="ws-target"
-          inputMode="decimal"
-          className={`${inputClass} num`}
-          value={target}
-          onChange={(e) => setTarget(e.target.value)}
-        />
-      </div>
+      </Field>
+      <TextField
+        id="ws-target"
+        label="Yield target (%)"
+        numeric
+        inputMode="decimal"
+        value={target}
+        onChange={(e) => setTarget(e.target.value)}
+      />
       <div className="sm:col-span-2">
         {save.isError && <ErrorNote error={save.error} />}
         {save.isSuccess && (

@@ -3,7 +3,8 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
 import { useState } from 'react';
 import { ApiError } from '../api/client.js';
-import { Button, inputClass, labelClass } from '../components/ui.js';
+import { TextField } from '../components/TextField.js';
+import { Button } from '../components/ui.js';
 
 const signInSchema = z.object({
   email: z.email('Enter your email address'),
@@ -40,34 +41,24 @@ export function SignInForm({ onSignIn }: { onSignIn: (values: SignInValues) => P
 
   return (
     <form onSubmit={submit} noValidate className="space-y-4" aria-label="Sign in">
-      <div>
-        <label htmlFor="email" className={labelClass}>
-          Email
-        </label>
-        <input
-          id="email"
-          type="email"
-          autoComplete="username"
-          className={inputClass}
-          {...register('email')}
-          aria-invalid={!!errors.email}
-        />
-        {errors.email && <p className="mt-1 text-xs text-brick">{errors.email.message}</p>}
-      </div>
-      <div>
-        <label htmlFor="password" className={labelClass}>
-          Password
-        </label>
-        <input
-          id="password"
-          type="password"
-          autoComplete="current-password"
-          className={inputClass}
-          {...register('password')}
-          aria-invalid={!!errors.password}
-        />
-        {errors.password && <p className="mt-1 text-xs text-brick">{errors.password.message}</p>}
-      </div>
+      <TextField
+        id="email"
+        label="Email"
+        type="email"
+        autoComplete="username"
+        {...register('email')}
+        aria-invalid={!!errors.email}
+        note={errors.email && <p className="mt-1 text-xs text-brick">{errors.email.message}</p>}
+      />
+      <TextField
+        id="password"
+        label="Password"
+        type="password"
+        autoComplete="current-password"
+        {...register('password')}
+        aria-invalid={!!errors.password}
+        note={errors.password && <p className="mt-1 text-xs text-brick">{errors.password.message}</p>}
+      />
       {failure && (
         <p role="alert" className="rounded-md bg-brick-soft px-3 py-2 text-sm text-brick">
           {failure}

@@ -1,7 +1,10 @@
 import { useFormContext } from 'react-hook-form';
 import type { Design } from '@sigmatail/engine';
-import { inputClass, labelClass } from '../components/ui.js';
-import { FieldError, optionalNumber } from './formHelpers.js';
+import { Field } from '../components/Field.js';
+import { TextField } from '../components/TextField.js';
+import { inputClass } from '../components/ui.js';
+import { FieldError } from './formHelpers.js';
+import { NumberField } from './NumberField.js';
 
 /** Name, topology, supplies and (direct-coupled) grid drive. */
 export function StageFields() {
@@ -14,109 +17,49 @@ export function StageFields() {
   const grid2Mode = watch('drive.grid2.mode');
   return (
     <div className="grid gap-3 sm:grid-cols-2">
-      <div className="sm:col-span-2">
-        <label htmlFor="d-name" className={labelClass}>
-          Design name
-        </label>
-        <input id="d-name" className={inputClass} {...register('name')} />
-        <FieldError error={errors.name} />
-      </div>
-      <div className="sm:col-span-2">
-        <label htmlFor="d-notes" className={labelClass}>
-          Notes
-        </label>
+      <TextField
+        id="d-name"
+        label="Design name"
+        className="sm:col-span-2"
+        {...register('name')}
+        note={<FieldError error={errors.name} />}
+      />
+      <Field id="d-notes" label="Notes" className="sm:col-span-2">
         <textarea id="d-notes" rows={2} className={inputClass} {...register('notes')} />
-      </div>
-      <div>
-        <label htmlFor="d-topology" className={labelClass}>
-          Topology
-        </label>
+      </Field>
+      <Field id="d-topology" label="Topology">
         <select id="d-topology" className={inputClass} {...register('topology')}>
           <option value="cap-coupled">Capacitor-coupled (grids leak to J)</option>
           <option value="direct-coupled">Direct-coupled (grid 1 at a DC level)</option>
         </select>
-      </div>
+      </Field>
       <div className="grid grid-cols-3 gap-2">
-        <div>
-          <label htmlFor="d-bplus" className={labelClass}>
-            B+ (V)
-          </label>
-          <input
-            id="d-bplus"
-            type="number"
-            step="any"
-            className={`${inputClass} num`}
-            {...register('supply.bPlus', optionalNumber)}
-          />
-          <FieldError error={errors.supply?.bPlus} />
-        </div>
-        <div>
-          <label htmlFor="d-tail" className={labelClass}>
-            Tail (V)
-          </label>
-          <input
-            id="d-tail"
-            type="number"
-            step="any"
-            className={`${inputClass} num`}
-            {...register('supply.tail', optionalNumber)}
-          />
-          <FieldError error={errors.supply?.tail} />
-        </div>
-        <div>
-          <label htmlFor="d-heater" className={labelClass}>
-            Heater (V)
-          </label>
-          <input
-            id="d-heater"
-            type="number"
-            step="any"
-            placeholder="0"
-            className={`${inputClass} num`}
-            {...register('supply.heater', optionalNumber)}
-          />
-          <FieldError error={errors.supply?.heater} />
-        </div>
+        <NumberField id="d-bplus" label="B+ (V)" name="supply.bPlus" error={errors.supply?.bPlus} />
+        <NumberField id="d-tail" label="Tail (V)" name="supply.tail" error={errors.supply?.tail} />
+        <NumberField
+          id="d-heater"
+          label="Heater (V)"
+          name="supply.heater"
+          placeholder="0"
+          error={errors.supply?.heater}
+        />
       </div>
       {topology === 'direct-coupled' && (
         <>
-          <div>
-            <label htmlFor="d-g1" className={labelClass}>
-              Grid 1 DC (V)
-            </label>
-            <input
-              id="d-g1"
-              type="number"
-              step="any"
-              className={`${inputClass} num`}
-              {...register('drive.grid1Dc', optionalNumber)}
-            />
-            <FieldError error={errors.drive?.grid1Dc ?? errors.drive} />
-          </div>
+          <NumberField
+            id="d-g1"
+            label="Grid 1 DC (V)"
+            name="drive.grid1Dc"
+            error={errors.drive?.grid1Dc ?? errors.drive}
+          />
           <div className="grid grid-cols-2 gap-2">
-            <div>
-              <label htmlFor="d-g2mode" className={labelClass}>
-                Grid 2
-              </label>
+            <Field id="d-g2mode" label="Grid 2">
               <select id="d-g2mode" className={inputClass} {...register('drive.grid2.mode')}>
                 <option value="leak-to-grid1">Leaks to grid 1</option>
                 <option value="fixed">Fixed DC</option>
               </select>
-            </div>
-            {grid2Mode === 'fixed' && (
-              <div>
-                <label htmlFor="d-g2dc" className={labelClass}>
-                  Grid 2 DC (V)
-                </label>
-                <input
-                  id="d-g2dc"
-                  type="number"
-                  step="any"
-                  className={`${inputClass} num`}
-                  {...register('drive.grid2.dc', optionalNumber)}
-                />
-              </div>
-            )}
+            </Field>
+            {grid2Mode === 'fixed' && <NumberField id="d-g2dc" label="Grid 2 DC (V)" name="drive.grid2.dc" />}
           </div>
         </>
       )}

@@ -1,8 +1,9 @@
 import { useFormContext } from 'react-hook-form';
 import { TUBE_CATALOG, TUBE_TYPES, type Design } from '@sigmatail/engine';
-import { inputClass, labelClass } from '../components/ui.js';
+import { Field } from '../components/Field.js';
+import { inputClass } from '../components/ui.js';
 import { formatSi } from '../format/formatSi.js';
-import { FieldError, optionalNumber } from './formHelpers.js';
+import { NumberField } from './NumberField.js';
 
 /** Tube type, spread between envelopes and sections, and the pairing rule. */
 export function TubeFields() {
@@ -18,10 +19,7 @@ export function TubeFields() {
   const e = errors.tube?.spread;
   return (
     <div className="grid gap-3 sm:grid-cols-4">
-      <div className="sm:col-span-2">
-        <label htmlFor="t-type" className={labelClass}>
-          Tube type
-        </label>
+      <Field id="t-type" label="Tube type" className="sm:col-span-2">
         <select id="t-type" className={inputClass} {...register('tube.type')}>
           {TUBE_TYPES.map((t) => (
             <option key={t}>{t}</option>
@@ -33,52 +31,24 @@ export function TubeFields() {
             Pd max {spec.maxPlateDissipation.value} W
           </p>
         )}
-      </div>
-      <div>
-        <label htmlFor="t-perv" className={labelClass}>
-          Perveance spread (% 1σ)
-        </label>
-        <input
-          id="t-perv"
-          type="number"
-          step="any"
-          className={`${inputClass} num`}
-          {...register('tube.spread.perveanceSd', optionalNumber)}
-        />
-        <FieldError error={e?.perveanceSd} />
-      </div>
-      <div>
-        <label htmlFor="t-mu" className={labelClass}>
-          mu spread (% 1σ)
-        </label>
-        <input
-          id="t-mu"
-          type="number"
-          step="any"
-          className={`${inputClass} num`}
-          {...register('tube.spread.muSd', optionalNumber)}
-        />
-        <FieldError error={e?.muSd} />
-      </div>
-      <div>
-        <label htmlFor="t-corr" className={labelClass}>
-          Section correlation (0–1)
-        </label>
-        <input
-          id="t-corr"
-          type="number"
-          step="0.05"
-          min={0}
-          max={1}
-          className={`${inputClass} num`}
-          {...register('tube.spread.sectionCorrelation', optionalNumber)}
-        />
-        <FieldError error={e?.sectionCorrelation} />
-      </div>
-      <div>
-        <label htmlFor="t-pair" className={labelClass}>
-          Pairing rule
-        </label>
+      </Field>
+      <NumberField
+        id="t-perv"
+        label="Perveance spread (% 1σ)"
+        name="tube.spread.perveanceSd"
+        error={e?.perveanceSd}
+      />
+      <NumberField id="t-mu" label="mu spread (% 1σ)" name="tube.spread.muSd" error={e?.muSd} />
+      <NumberField
+        id="t-corr"
+        label="Section correlation (0–1)"
+        name="tube.spread.sectionCorrelation"
+        step="0.05"
+        min={0}
+        max={1}
+        error={e?.sectionCorrelation}
+      />
+      <Field id="t-pair" label="Pairing rule">
         <select
           id="t-pair"
           className={inputClass}
@@ -100,21 +70,14 @@ export function TubeFields() {
           <option value="gm">Matched on gm</option>
           <option value="mu">Matched on mu</option>
         </select>
-      </div>
+      </Field>
       {pairing && (
-        <div>
-          <label htmlFor="t-within" className={labelClass}>
-            Matched within ± %
-          </label>
-          <input
-            id="t-within"
-            type="number"
-            step="any"
-            className={`${inputClass} num`}
-            {...register('tube.spread.pairing.within', optionalNumber)}
-          />
-          <FieldError error={e?.pairing?.within} />
-        </div>
+        <NumberField
+          id="t-within"
+          label="Matched within ± %"
+          name="tube.spread.pairing.within"
+          error={e?.pairing?.within}
+        />
       )}
     </div>
   );

@@ -3,8 +3,8 @@ import { useState } from 'react';
 import { Link } from 'react-router';
 import { api } from '../api/client.js';
 import { AuthFrame } from '../auth/AuthFrame.js';
-import { ErrorNote } from '../components/QueryState.js';
-import { Button, inputClass, labelClass } from '../components/ui.js';
+import { AuthSubmit } from '../auth/AuthSubmit.js';
+import { TextField } from '../components/TextField.js';
 
 export function ForgotPage() {
   const [email, setEmail] = useState('');
@@ -24,23 +24,15 @@ export function ForgotPage() {
             forgot.mutate(email);
           }}
         >
-          <div>
-            <label htmlFor="forgot-email" className={labelClass}>
-              Email
-            </label>
-            <input
-              id="forgot-email"
-              type="email"
-              required
-              className={inputClass}
-              value={email}
-              onChange={(e) => setEmail(e.target.value)}
-            />
-          </div>
-          {forgot.isError && <ErrorNote error={forgot.error} />}
-          <Button tone="primary" type="submit" disabled={forgot.isPending} className="w-full py-2">
-            Send reset link
-          </Button>
+          <TextField
+            id="forgot-email"
+            label="Email"
+            type="email"
+            required
+            value={email}
+            onChange={(e) => setEmail(e.target.value)}
+          />
+          <AuthSubmit mutation={forgot}>Send reset link</AuthSubmit>
         </form>
       )}
       <p className="mt-4 text-sm">

@@ -6,7 +6,8 @@ import { authQueries } from '../api/queries/authQueries.js';
 import { AuthFrame } from '../auth/AuthFrame.js';
 import { PASSWORD_MIN } from '../auth/passwordRules.js';
 import { ErrorNote, Loading } from '../components/QueryState.js';
-import { Button, inputClass, labelClass } from '../components/ui.js';
+import { AuthSubmit } from '../auth/AuthSubmit.js';
+import { TextField } from '../components/TextField.js';
 
 export function InviteAcceptPage() {
   const { token = '' } = useParams();
@@ -39,38 +40,25 @@ export function InviteAcceptPage() {
             {invite.data.invitedBy.name} invited <strong>{invite.data.email}</strong> to{' '}
             <strong>{invite.data.workspace.name}</strong> as <strong>{invite.data.role}</strong>.
           </p>
-          <div>
-            <label htmlFor="invite-name" className={labelClass}>
-              Your name
-            </label>
-            <input
-              id="invite-name"
-              required
-              autoComplete="name"
-              className={inputClass}
-              value={name}
-              onChange={(e) => setName(e.target.value)}
-            />
-          </div>
-          <div>
-            <label htmlFor="invite-password" className={labelClass}>
-              Password (at least {PASSWORD_MIN} characters)
-            </label>
-            <input
-              id="invite-password"
-              type="password"
-              required
-              minLength={PASSWORD_MIN}
-              autoComplete="new-password"
-              className={inputClass}
-              value={password}
-              onChange={(e) => setPassword(e.target.value)}
-            />
-          </div>
-          {accept.isError && <ErrorNote error={accept.error} />}
-          <Button tone="primary" type="submit" disabled={accept.isPending} className="w-full py-2">
-            Create my account
-          </Button>
+          <TextField
+            id="invite-name"
+            label="Your name"
+            required
+            autoComplete="name"
+            value={name}
+            onChange={(e) => setName(e.target.value)}
+          />
+          <TextField
+            id="invite-password"
+            label={<>Password (at least {PASSWORD_MIN} characters)</>}
+            type="password"
+            required
+            minLength={PASSWORD_MIN}
+            autoComplete="new-password"
+            value={password}
+            onChange={(e) => setPassword(e.target.value)}
+          />
+          <AuthSubmit mutation={accept}>Create my account</AuthSubmit>
         </form>
       )}
     </AuthFrame>

@@ -3,8 +3,8 @@ import { useState } from 'react';
 import { Link, useParams } from 'react-router';
 import { api } from '../api/client.js';
 import { AuthFrame } from '../auth/AuthFrame.js';
-import { ErrorNote } from '../components/QueryState.js';
-import { Button, inputClass, labelClass } from '../components/ui.js';
+import { AuthSubmit } from '../auth/AuthSubmit.js';
+import { TextField } from '../components/TextField.js';
 import { PASSWORD_MIN } from '../auth/passwordRules.js';
 
 export function ResetPage() {
@@ -30,40 +30,29 @@ export function ResetPage() {
             if (!mismatch) reset.mutate();
           }}
         >
-          <div>
-            <label htmlFor="new-password" className={labelClass}>
-              New password (at least {PASSWORD_MIN} characters)
-            </label>
-            <input
-              id="new-password"
-              type="password"
-              autoComplete="new-password"
-              minLength={PASSWORD_MIN}
-              required
-              className={inputClass}
-              value={password}
-              onChange={(e) => setPassword(e.target.value)}
-            />
-          </div>
-          <div>
-            <label htmlFor="repeat-password" className={labelClass}>
-              Repeat it
-            </label>
-            <input
-              id="repeat-password"
-              type="password"
-              autoComplete="new-password"
-              required
-              className={inputClass}
-              value={repeat}
-              onChange={(e) => setRepeat(e.target.value)}
-            />
-            {mismatch && <p className="mt-1 text-xs text-brick">The two passwords differ.</p>}
-          </div>
-          {reset.isError && <ErrorNote error={reset.error} />}
-          <Button tone="primary" type="submit" disabled={reset.isPending || mismatch} className="w-full py-2">
+          <TextField
+            id="new-password"
+            label={<>New password (at least {PASSWORD_MIN} characters)</>}
+            type="password"
+            autoComplete="new-password"
+            minLength={PASSWORD_MIN}
+            required
+            value={password}
+            onChange={(e) => setPassword(e.target.value)}
+          />
+          <TextField
+            id="repeat-password"
+            label="Repeat it"
+            type="password"
+            autoComplete="new-password"
+            required
+            value={repeat}
+            onChange={(e) => setRepeat(e.target.value)}
+            note={mismatch && <p className="mt-1 text-xs text-brick">The two passwords differ.</p>}
+          />
+          <AuthSubmit mutation={reset} disabled={mismatch}>
             Set password
-          </Button>
+          </AuthSubmit>
         </form>
       )}
     </AuthFrame>

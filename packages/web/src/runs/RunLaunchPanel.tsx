@@ -9,7 +9,9 @@ import type { SamplingPlan } from '../api/types.js';
 import { can } from '../auth/permissions.js';
 import { useMe } from '../auth/useMe.js';
 import { ErrorNote, Loading } from '../components/QueryState.js';
-import { Button, inputClass, labelClass, Panel } from '../components/ui.js';
+import { Field } from '../components/Field.js';
+import { TextField } from '../components/TextField.js';
+import { Button, inputClass, Panel } from '../components/ui.js';
 
 const PLAN_LABELS: Record<SamplingPlan, string> = {
   random: 'Random (Monte Carlo)',
@@ -78,36 +80,25 @@ function RunLaunchForm(props: { designId: string; revision?: number; samples: nu
         }}
       >
         <fieldset disabled={!allowed} className="grid gap-3 sm:grid-cols-3">
-          <div>
-            <label htmlFor="run-n" className={labelClass}>
-              Samples N
-            </label>
-            <input
-              id="run-n"
-              inputMode="numeric"
-              className={`${inputClass} num`}
-              value={samples}
-              onChange={(e) => setSamples(e.target.value)}
-              aria-invalid={!!nError}
-            />
-            {nError && <p className="mt-0.5 text-xs text-brick">{nError}</p>}
-          </div>
-          <div>
-            <label htmlFor="run-seed" className={labelClass}>
-              Seed (blank = new)
-            </label>
-            <input
-              id="run-seed"
-              maxLength={MAX_SEED_LENGTH}
-              className={`${inputClass} num`}
-              value={seed}
-              onChange={(e) => setSeed(e.target.value)}
-            />
-          </div>
-          <div>
-            <label htmlFor="run-plan" className={labelClass}>
-              Sampling plan
-            </label>
+          <TextField
+            id="run-n"
+            label="Samples N"
+            numeric
+            inputMode="numeric"
+            value={samples}
+            onChange={(e) => setSamples(e.target.value)}
+            aria-invalid={!!nError}
+            note={nError && <p className="mt-0.5 text-xs text-brick">{nError}</p>}
+          />
+          <TextField
+            id="run-seed"
+            label="Seed (blank = new)"
+            numeric
+            maxLength={MAX_SEED_LENGTH}
+            value={seed}
+            onChange={(e) => setSeed(e.target.value)}
+          />
+          <Field id="run-plan" label="Sampling plan">
             <select
               id="run-plan"
               className={inputClass}
@@ -120,7 +111,7 @@ function RunLaunchForm(props: { designId: string; revision?: number; samples: nu
                 </option>
               ))}
             </select>
-          </div>
+          </Field>
           <div className="flex flex-wrap gap-4 text-sm sm:col-span-3">
             <label className="flex items-center gap-1.5">
               <input type="checkbox" checked={influence} onChange={(e) => setInfluence(e.target.checked)} />{' '}
