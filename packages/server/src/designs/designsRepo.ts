@@ -1,5 +1,5 @@
 import type { Database } from '@sigmatail/db';
-import { sql, type Kysely } from 'kysely';
+import { sql, type Kysely, type Transaction } from 'kysely';
 
 /** All design SQL: a design is a name plus a chain of immutable revisions 1, 2, 3, … */
 
@@ -105,9 +105,31 @@ export async function findRevision(db: Kysely<Database>, designId: string, rev: 
 }
 
 /** Creates the design with revision 1. */
+/** What a save stores: the document, the design's name taken from it, the message and who saved. */
+interface SavedRevision {
+  userId: string;
+  name: string;
+  document: unknown;
+  message: string | null;
+}
+
+/** The immutable revision row `rev` of a design, written inside the save's transaction. */
+async function addRevisionRow(tx: Transaction<Database>, designId: string, rev: number, v: SavedRevision) {
+  await tx
+    .insertInto('design_revisions')
+    .values({
+      design_id: designId,
+      rev,
+      document: JSON.stringify(v.document),
+      message: v.message,
+      created_by: v.userId,
+    })
+    .execute();
+}
+
 export async function insertDesign(
   db: Kysely<Database>,
-  v: { workspaceId: string; userId: string; name: string; document: unknown; message: string | null },
+  v: SavedRevision & { workspaceId: string },
 ): Promise<string> {
   return db.transaction().execute(async (tx) => {
     const d = await tx
@@ -115,16 +137,7 @@ export async function insertDesign(
       .values({ workspace_id: v.workspaceId, name: v.name, created_by: v.userId, latest_rev: 1 })
       .returning('id')
       .executeTakeFirstOrThrow();
-    await tx
-      .insertInto('design_revisions')
-      .values({
-        design_id: d.id,
-        rev: 1,
-        document: JSON.stringify(v.document),
-        message: v.message,
-        created_by: v.userId,
-      })
-      .execute();
+    await addRevisionRow(tx, d.id, 1, v);
     return d.id;
   });
 }
@@ -135,7 +148,7 @@ export async function insertDesign(
  */
 export async function insertRevision(
   db: Kysely<Database>,
-  v: { designId: string; userId: string; name: string; document: unknown; message: string | null },
+  v: SavedRevision & { designId: string },
 ): Promise<number> {
   return db.transaction().execute(async (tx) => {
     const d = await tx
@@ -144,16 +157,7 @@ export async function insertRevision(
       .where('id', '=', v.designId)
       .returning('latest_rev')
       .executeTakeFirstOrThrow();
-    await tx
-      .insertInto('design_revisions')
-      .values({
-        design_id: v.designId,
-        rev: d.latest_rev,
-        document: JSON.stringify(v.document),
-        message: v.message,
-        created_by: v.userId,
-      })
-      .execute();
+    await addRevisionRow(tx, v.designId, d.latest_rev, v);
     return d.latest_rev;
   });
 }

@@ -38,6 +38,20 @@ export function createDesignsRouter({ db }: AppDeps): Router {
     if (!d) throw new HttpError(404, 'design not found');
     return d;
   };
+  /** The saved document (validated, or a 400 naming the field), its name and message, and who saves it. */
+  const readSave = (req: Request) => {
+    const body = saveBody.parse(req.body ?? {});
+    const design = validateDesignDocument(body.document);
+    return {
+      userId: req.user!.id,
+      name: design.name,
+      document: body.document,
+      message: body.message ?? null,
+    };
+  };
+  /** One audit event by the signed-in user in their workspace. */
+  const audit = (req: Request, action: string, target: string, detail?: Record<string, unknown>) =>
+    recordAudit(db, { workspaceId: req.user!.workspaceId, userId: req.user!.id, action, target, detail });
   const present = async (designId: string, workspaceId: string) => {
     const d = (await findDesign(db, workspaceId, designId))!;
     const latest = await findRevision(db, d.id, d.latest_rev);
@@ -60,24 +74,11 @@ export function createDesignsRouter({ db }: AppDeps): Router {
   });
 
   router.post('/designs', requireRole('engineer'), async (req, res) => {
-    const body = saveBody.parse(req.body ?? {});
-    const design = validateDesignDocument(body.document);
-    const user = req.user!;
-    const id = await insertDesign(db, {
-      workspaceId: user.workspaceId,
-      userId: user.id,
-      name: design.name,
-      document: body.document,
-      message: body.message ?? null,
-    });
-    await recordAudit(db, {
-      workspaceId: user.workspaceId,
-      userId: user.id,
-      action: 'design.create',
-      target: id,
-      detail: { name: design.name },
-    });
-    res.status(201).json(await present(id, user.workspaceId));
+    const save = readSave(req);
+    const workspaceId = req.user!.workspaceId;
+    const id = await insertDesign(db, { workspaceId, ...save });
+    await audit(req, 'design.create', id, { name: save.name });
+    res.status(201).json(await present(id, workspaceId));
   });
 
   router.get('/designs/:id', requireAuth, async (req, res) => {
@@ -102,23 +103,8 @@ export function createDesignsRouter({ db }: AppDeps): Router {
     const d = await loadDesign(req);
     if (d.archived_at)
       throw new HttpError(409, 'this design is archived; restore it before saving a revision');
-    const body = saveBody.parse(req.body ?? {});
-    const design = validateDesignDocument(body.document);
-    const user = req.user!;
-    const rev = await insertRevision(db, {
-      designId: d.id,
-      userId: user.id,
-      name: design.name,
-      document: body.document,
-      message: body.message ?? null,
-    });
-    await recordAudit(db, {
-      workspaceId: user.workspaceId,
-      userId: user.id,
-      action: 'design.revise',
-      target: d.id,
-      detail: { rev },
-    });
+    const rev = await insertRevision(db, { designId: d.id, ...readSave(req) });
+    await audit(req, 'design.revise', d.id, { rev });
     res.status(201).json({ revision: await findRevision(db, d.id, rev) });
   });
 
@@ -127,13 +113,7 @@ export function createDesignsRouter({ db }: AppDeps): Router {
     const d = await loadDesign(req);
     const { archived } = archiveBody.parse(req.body ?? undefined);
     await setArchived(db, d.id, archived);
-    const user = req.user!;
-    await recordAudit(db, {
-      workspaceId: user.workspaceId,
-      userId: user.id,
-      action: archived ? 'design.archive' : 'design.restore',
-      target: d.id,
-    });
+    await audit(req, archived ? 'design.archive' : 'design.restore', d.id);
     res.json(await present(d.id, d.workspace_id));
   });
 
