@@ -1,8 +1,9 @@
 import { scaleLinear, scaleLog } from 'd3';
 import type { Ref } from 'react';
 import { formatSi } from '../format/formatSi.js';
-import { Axis } from './Axis.js';
-import { DIM, FONT, MARGIN, MONO, SERIES_COLOURS } from './chartTheme.js';
+import { ChartSvg } from './ChartSvg.js';
+import { ValueAxis } from './ValueAxis.js';
+import { DIM, MARGIN, MONO, SERIES_COLOURS } from './chartTheme.js';
 
 export interface ConvergencePoint {
   n: number;
@@ -54,22 +55,8 @@ export function ConvergencePlot({
       'Z';
   const xTicks = x.ticks(5).filter((t) => Number.isInteger(Math.log10(t)));
   return (
-    <svg
-      ref={svgRef}
-      viewBox={`0 0 ${width} ${height}`}
-      className="h-auto w-full"
-      role="img"
-      aria-label={label}
-      fontFamily={FONT}
-    >
-      <Axis
-        scale={y}
-        orient="left"
-        at={MARGIN.left}
-        grid={width - MARGIN.left - MARGIN.right}
-        unit={percent ? '%' : ''}
-        ticks={4}
-      />
+    <ChartSvg svgRef={svgRef} width={width} height={height} label={label}>
+      <ValueAxis scale={y} width={width} unit={percent ? '%' : ''} ticks={4} />
       {band && <path d={band} fill={SERIES_COLOURS[1]} fillOpacity={0.15} />}
       <path d={line} fill="none" stroke={SERIES_COLOURS[0]} strokeWidth={1.8} />
       <line
@@ -95,6 +82,6 @@ export function ConvergencePlot({
       <text x={width - MARGIN.right} y={height - 6} fontSize={10} fill={DIM} textAnchor="end">
         samples drawn (log scale){percent ? ' · yield %' : ''}
       </text>
-    </svg>
+    </ChartSvg>
   );
 }

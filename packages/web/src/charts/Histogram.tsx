@@ -2,7 +2,9 @@ import { scaleLinear } from 'd3';
 import type { Ref } from 'react';
 import { formatSi } from '../format/formatSi.js';
 import { Axis } from './Axis.js';
-import { DIM, FONT, MARGIN, SERIES_COLOURS, SPEC } from './chartTheme.js';
+import { ChartSvg } from './ChartSvg.js';
+import { ValueAxis } from './ValueAxis.js';
+import { DIM, MARGIN, SERIES_COLOURS, SPEC } from './chartTheme.js';
 
 export interface HistogramSeries {
   label: string;
@@ -62,22 +64,8 @@ export function Histogram({
   const base = y(0);
   const single = series.length === 1;
   return (
-    <svg
-      ref={svgRef}
-      viewBox={`0 0 ${width} ${height}`}
-      className="h-auto w-full"
-      role="img"
-      aria-label={label}
-      fontFamily={FONT}
-    >
-      <Axis
-        scale={y}
-        orient="left"
-        at={MARGIN.left}
-        grid={width - MARGIN.left - MARGIN.right}
-        unit=""
-        ticks={4}
-      />
+    <ChartSvg svgRef={svgRef} width={width} height={height} label={label}>
+      <ValueAxis scale={y} width={width} unit="" ticks={4} />
       {series.map((s, si) => {
         const colour = SERIES_COLOURS[si % SERIES_COLOURS.length];
         if (single) {
@@ -149,6 +137,6 @@ export function Histogram({
             </text>
           </g>
         ))}
-    </svg>
+    </ChartSvg>
   );
 }

@@ -1,7 +1,9 @@
 import { extent, scaleLinear } from 'd3';
 import type { Ref } from 'react';
 import { Axis } from './Axis.js';
-import { DIM, FONT, MARGIN, SERIES_COLOURS, SPEC } from './chartTheme.js';
+import { ChartSvg } from './ChartSvg.js';
+import { ValueAxis } from './ValueAxis.js';
+import { DIM, MARGIN, SERIES_COLOURS, SPEC } from './chartTheme.js';
 
 interface ScatterProps {
   xs: number[];
@@ -47,22 +49,8 @@ export function Scatter({
     .range([height - MARGIN.bottom, MARGIN.top])
     .nice();
   return (
-    <svg
-      ref={svgRef}
-      viewBox={`0 0 ${width} ${height}`}
-      className="h-auto w-full"
-      role="img"
-      aria-label={`${yLabel} against ${xLabel}`}
-      fontFamily={FONT}
-    >
-      <Axis
-        scale={y}
-        orient="left"
-        at={MARGIN.left}
-        grid={width - MARGIN.left - MARGIN.right}
-        unit={yUnit}
-        ticks={5}
-      />
+    <ChartSvg svgRef={svgRef} width={width} height={height} label={`${yLabel} against ${xLabel}`}>
+      <ValueAxis scale={y} width={width} unit={yUnit} ticks={5} />
       <Axis scale={x} orient="bottom" at={height - MARGIN.bottom} unit={xUnit} ticks={5} />
       <g fill={SERIES_COLOURS[0]} fillOpacity={0.45}>
         {pts.map(([a, b], i) => (
@@ -99,6 +87,6 @@ export function Scatter({
       >
         {yLabel}
       </text>
-    </svg>
+    </ChartSvg>
   );
 }

@@ -2,7 +2,8 @@ import { scaleBand, scaleLinear } from 'd3';
 import type { Ref } from 'react';
 import { formatSi } from '../format/formatSi.js';
 import { Axis } from './Axis.js';
-import { DIM, FONT, MONO, SERIES_COLOURS } from './chartTheme.js';
+import { ChartSvg } from './ChartSvg.js';
+import { DIM, MONO, SERIES_COLOURS } from './chartTheme.js';
 
 export interface TornadoBar {
   label: string;
@@ -51,14 +52,7 @@ export function Tornado({
     .range([8, height - 36])
     .padding(0.22);
   return (
-    <svg
-      ref={svgRef}
-      viewBox={`0 0 ${width} ${height}`}
-      className="h-auto w-full"
-      role="img"
-      aria-label={label}
-      fontFamily={FONT}
-    >
+    <ChartSvg svgRef={svgRef} width={width} height={height} label={label}>
       {sorted.map((b) => {
         const yy = y(b.label) ?? 0;
         const seg = (v: number, colour: string, key: string) => {
@@ -97,6 +91,6 @@ export function Tornado({
         <rect x={130} width={9} height={9} y={-8} fill={SERIES_COLOURS[0]} />
         <text x={143}>at high extreme</text>
       </g>
-    </svg>
+    </ChartSvg>
   );
 }
