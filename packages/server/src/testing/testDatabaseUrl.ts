@@ -1,3 +1,2 @@
-/** The shared, migrated test database (tests make unique data, so files can share it). */
-export const TEST_DATABASE_URL =
-  process.env.TEST_DATABASE_URL ?? 'postgres://postgres@127.0.0.1:55432/sigmatail_test';
+// The server's tests share the database package's test database.
+export { TEST_DATABASE_URL } from '@sigmatail/db/testing';
