@@ -1,7 +1,7 @@
 import { useQuery } from '@tanstack/react-query';
 import { adminQueries } from '../api/queries/adminQueries.js';
 import type { AuditEvent } from '../api/types.js';
-import { ErrorNote, Loading } from '../components/QueryState.js';
+import { QueryStatus } from '../components/QueryState.js';
 import { Panel } from '../components/ui.js';
 import { formatWhen } from '../format/formatWhen.js';
 
@@ -17,8 +17,7 @@ export function AuditPanel() {
   const audit = useQuery(adminQueries.audit());
   return (
     <Panel title="Audit log">
-      {audit.isPending && <Loading />}
-      {audit.isError && <ErrorNote error={audit.error} onRetry={() => audit.refetch()} />}
+      <QueryStatus query={audit} />
       {audit.data?.length === 0 && <p className="text-sm text-dim">Nothing recorded yet.</p>}
       {audit.data && audit.data.length > 0 && (
         <table className="w-full text-sm">

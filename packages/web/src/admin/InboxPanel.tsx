@@ -1,7 +1,7 @@
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { adminQueries } from '../api/queries/adminQueries.js';
-import { ErrorNote, Loading } from '../components/QueryState.js';
+import { ErrorNote, Loading, QueryStatus } from '../components/QueryState.js';
 import { Button, Panel } from '../components/ui.js';
 import { formatWhen } from '../format/formatWhen.js';
 
@@ -14,8 +14,7 @@ export function InboxPanel() {
   return (
     <div className="grid gap-4 lg:grid-cols-[minmax(0,2fr)_minmax(0,3fr)]">
       <Panel title="Dev inbox" actions={<Button onClick={() => inbox.refetch()}>Refresh</Button>}>
-        {inbox.isPending && <Loading />}
-        {inbox.isError && <ErrorNote error={inbox.error} onRetry={() => inbox.refetch()} />}
+        <QueryStatus query={inbox} />
         {inbox.data?.length === 0 && <p className="text-sm text-dim">No mail captured yet.</p>}
         <ul className="divide-y divide-rule/70" aria-label="Captured mail">
           {inbox.data?.map((m) => (

@@ -3,7 +3,7 @@ import { api } from '../api/client.js';
 import { adminQueries } from '../api/queries/adminQueries.js';
 import { ROLES, type Role, type UserRow } from '../api/types.js';
 import { useMe } from '../auth/useMe.js';
-import { ErrorNote, Loading } from '../components/QueryState.js';
+import { ErrorNote, QueryStatus } from '../components/QueryState.js';
 import { Button, Panel } from '../components/ui.js';
 import { formatWhen } from '../format/formatWhen.js';
 
@@ -24,8 +24,7 @@ export function UsersPanel() {
         admin: everything · engineer: edit designs, launch runs · production: launch runs, export · viewer:
         read only
       </p>
-      {users.isPending && <Loading />}
-      {users.isError && <ErrorNote error={users.error} onRetry={() => users.refetch()} />}
+      <QueryStatus query={users} />
       {setRole.isError && <ErrorNote error={setRole.error} />}
       {remove.isError && <ErrorNote error={remove.error} />}
       {users.data && (

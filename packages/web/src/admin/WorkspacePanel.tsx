@@ -5,7 +5,7 @@ import { api } from '../api/client.js';
 import { workspaceQueries } from '../api/queries/workspaceQueries.js';
 import { authQueries } from '../api/queries/authQueries.js';
 import type { SamplingPlan, Workspace } from '../api/types.js';
-import { ErrorNote, Loading } from '../components/QueryState.js';
+import { ErrorNote, QueryStatus } from '../components/QueryState.js';
 import { Field } from '../components/Field.js';
 import { TextField } from '../components/TextField.js';
 import { Button, inputClass, Panel } from '../components/ui.js';
@@ -15,8 +15,7 @@ export function WorkspacePanel() {
   const ws = useQuery(workspaceQueries.detail());
   return (
     <Panel title="Workspace settings">
-      {ws.isPending && <Loading />}
-      {ws.isError && <ErrorNote error={ws.error} onRetry={() => ws.refetch()} />}
+      <QueryStatus query={ws} />
       {ws.data && <WorkspaceForm key={JSON.stringify(ws.data)} workspace={ws.data} />}
     </Panel>
   );

@@ -31,3 +31,19 @@ export function ErrorNote({ error, onRetry }: { error: unknown; onRetry?: () => 
     </div>
   );
 }
+
+/** A query's loading placeholder (`label`) or its failure with a retry; nothing once it has data. */
+export function QueryStatus({
+  query,
+  label,
+}: {
+  query: { isPending: boolean; isError: boolean; error: unknown; refetch: () => unknown };
+  label?: string;
+}) {
+  return (
+    <>
+      {query.isPending && <Loading label={label} />}
+      {query.isError && <ErrorNote error={query.error} onRetry={() => query.refetch()} />}
+    </>
+  );
+}

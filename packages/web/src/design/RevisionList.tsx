@@ -1,7 +1,7 @@
 import { useQuery } from '@tanstack/react-query';
 import { Link } from 'react-router';
 import { designQueries } from '../api/queries/designQueries.js';
-import { ErrorNote, Loading } from '../components/QueryState.js';
+import { QueryStatus } from '../components/QueryState.js';
 import { Panel } from '../components/ui.js';
 import { formatWhen } from '../format/formatWhen.js';
 
@@ -10,8 +10,7 @@ export function RevisionList({ designId }: { designId: string }) {
   const revs = useQuery(designQueries.revisions(designId));
   return (
     <Panel title="Revision history">
-      {revs.isPending && <Loading />}
-      {revs.isError && <ErrorNote error={revs.error} onRetry={() => revs.refetch()} />}
+      <QueryStatus query={revs} />
       {revs.data && (
         <ol className="max-h-72 divide-y divide-rule/70 overflow-y-auto text-sm" aria-label="Revisions">
           {[...revs.data]

@@ -3,16 +3,15 @@ import { useSearchParams } from 'react-router';
 import { runQueries } from '../api/queries/runQueries.js';
 import { CompareHistograms } from '../compare/CompareHistograms.js';
 import { CompareTable } from '../compare/CompareTable.js';
-import { ErrorNote, Loading } from '../components/QueryState.js';
+import { ErrorNote, Loading, QueryStatus } from '../components/QueryState.js';
 import { PageTitle, Panel } from '../components/ui.js';
 import { RunTable } from '../runs/RunTable.js';
-
-const MAX = 4;
+import { MAX_PICKED_RUNS, togglePick } from '../runs/togglePick.js';
 
 /** Compare 2–4 finished runs; the picked runs live in the URL (?runs=a,b,c) so the page can be shared. */
 export function ComparePage() {
   const [params, setParams] = useSearchParams();
-  const ids = (params.get('runs') ?? '').split(',').filter(Boolean).slice(0, MAX);
+  const ids = (params.get('runs') ?? '').split(',').filter(Boolean).slice(0, MAX_PICKED_RUNS);
   const setIds = (next: string[]) =>
     setParams(next.length ? { runs: next.join(',') } : {}, { replace: true });
   const done = useQuery(runQueries.list({ status: 'done' }));
@@ -27,15 +26,10 @@ export function ComparePage() {
       <PageTitle sub="Pick two to four finished runs. The address of this page keeps the selection, so you can share it.">
         Compare runs
       </PageTitle>
-      <Panel title={`Runs (${ids.length} of ${MAX} picked)`}>
-        {done.isPending && <Loading />}
-        {done.isError && <ErrorNote error={done.error} onRetry={() => done.refetch()} />}
+      <Panel title={`Runs (${ids.length} of ${MAX_PICKED_RUNS} picked)`}>
+        <QueryStatus query={done} />
         {done.data && (
-          <RunTable
-            runs={done.data}
-            picked={ids}
-            onPick={(id, on) => setIds(on ? [...ids, id].slice(-MAX) : ids.filter((x) => x !== id))}
-          />
+          <RunTable runs={done.data} picked={ids} onPick={(id, on) => setIds(togglePick(ids, id, on))} />
         )}
       </Panel>
       {ids.length < 2 && <p className="text-sm text-dim">Pick at least two runs to compare.</p>}

@@ -4,7 +4,7 @@ import { Link } from 'react-router';
 import { designQueries } from '../api/queries/designQueries.js';
 import { can } from '../auth/permissions.js';
 import { useMe } from '../auth/useMe.js';
-import { ErrorNote, Loading } from '../components/QueryState.js';
+import { QueryStatus } from '../components/QueryState.js';
 import { inputClass, PageTitle } from '../components/ui.js';
 import { useDebounced } from '../components/useDebounced.js';
 import { formatWhen } from '../format/formatWhen.js';
@@ -52,8 +52,7 @@ export function DesignsPage() {
           Show archived
         </label>
       </div>
-      {designs.isPending && <Loading label="Loading designs…" />}
-      {designs.isError && <ErrorNote error={designs.error} onRetry={() => designs.refetch()} />}
+      <QueryStatus query={designs} label="Loading designs…" />
       {designs.data && designs.data.length === 0 && (
         <p className="rounded-lg border border-dashed border-rule p-8 text-center text-sm text-dim">
           {search ? `No design matches “${search}”.` : 'No designs yet.'}
