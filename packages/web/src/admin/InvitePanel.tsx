@@ -4,9 +4,9 @@ import { api } from '../api/client.js';
 import { adminQueries } from '../api/queries/adminQueries.js';
 import { ROLES, type Role } from '../api/types.js';
 import { ErrorNote } from '../components/QueryState.js';
-import { Field } from '../components/Field.js';
+import { ChoiceField } from '../components/ChoiceField.js';
 import { TextField } from '../components/TextField.js';
-import { Button, inputClass, Panel } from '../components/ui.js';
+import { Button, Panel } from '../components/ui.js';
 
 export function InvitePanel() {
   const qc = useQueryClient();
@@ -34,18 +34,7 @@ export function InvitePanel() {
           value={email}
           onChange={(e) => setEmail(e.target.value)}
         />
-        <Field id="invite-role" label="Role">
-          <select
-            id="invite-role"
-            className={inputClass}
-            value={role}
-            onChange={(e) => setRole(e.target.value as Role)}
-          >
-            {ROLES.map((r) => (
-              <option key={r}>{r}</option>
-            ))}
-          </select>
-        </Field>
+        <ChoiceField id="invite-role" label="Role" value={role} choices={ROLES} onChange={setRole} />
         <Button tone="primary" type="submit" disabled={invite.isPending}>
           Send invite
         </Button>

@@ -6,9 +6,9 @@ import { workspaceQueries } from '../api/queries/workspaceQueries.js';
 import { authQueries } from '../api/queries/authQueries.js';
 import type { SamplingPlan, Workspace } from '../api/types.js';
 import { ErrorNote, QueryStatus } from '../components/QueryState.js';
-import { Field } from '../components/Field.js';
+import { ChoiceField } from '../components/ChoiceField.js';
 import { TextField } from '../components/TextField.js';
-import { Button, inputClass, Panel } from '../components/ui.js';
+import { Button, Panel } from '../components/ui.js';
 
 /** Workspace name and the defaults new runs start from. */
 export function WorkspacePanel() {
@@ -66,18 +66,13 @@ function WorkspaceForm({ workspace }: { workspace: Workspace }) {
         value={samples}
         onChange={(e) => setSamples(e.target.value)}
       />
-      <Field id="ws-plan" label="Default sampling plan">
-        <select
-          id="ws-plan"
-          className={inputClass}
-          value={plan}
-          onChange={(e) => setPlan(e.target.value as SamplingPlan)}
-        >
-          {SAMPLING_PLANS.map((p) => (
-            <option key={p}>{p}</option>
-          ))}
-        </select>
-      </Field>
+      <ChoiceField
+        id="ws-plan"
+        label="Default sampling plan"
+        value={plan}
+        choices={SAMPLING_PLANS}
+        onChange={setPlan}
+      />
       <TextField
         id="ws-target"
         label="Yield target (%)"

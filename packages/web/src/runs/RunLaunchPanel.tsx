@@ -9,9 +9,9 @@ import type { SamplingPlan } from '../api/types.js';
 import { can } from '../auth/permissions.js';
 import { useMe } from '../auth/useMe.js';
 import { ErrorNote, Loading } from '../components/QueryState.js';
-import { Field } from '../components/Field.js';
+import { ChoiceField } from '../components/ChoiceField.js';
 import { TextField } from '../components/TextField.js';
-import { Button, inputClass, Panel } from '../components/ui.js';
+import { Button, Panel } from '../components/ui.js';
 
 const PLAN_LABELS: Record<SamplingPlan, string> = {
   random: 'Random (Monte Carlo)',
@@ -98,20 +98,14 @@ function RunLaunchForm(props: { designId: string; revision?: number; samples: nu
             value={seed}
             onChange={(e) => setSeed(e.target.value)}
           />
-          <Field id="run-plan" label="Sampling plan">
-            <select
-              id="run-plan"
-              className={inputClass}
-              value={plan}
-              onChange={(e) => setPlan(e.target.value as SamplingPlan)}
-            >
-              {SAMPLING_PLANS.map((p) => (
-                <option key={p} value={p}>
-                  {PLAN_LABELS[p]}
-                </option>
-              ))}
-            </select>
-          </Field>
+          <ChoiceField
+            id="run-plan"
+            label="Sampling plan"
+            value={plan}
+            choices={SAMPLING_PLANS}
+            labelOf={(p) => PLAN_LABELS[p]}
+            onChange={setPlan}
+          />
           <div className="flex flex-wrap gap-4 text-sm sm:col-span-3">
             <label className="flex items-center gap-1.5">
               <input type="checkbox" checked={influence} onChange={(e) => setInfluence(e.target.checked)} />{' '}
