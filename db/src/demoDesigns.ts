@@ -1,3 +1,10 @@
+/** Parts that share one tolerance (± %) and spread shape, by part id and RKM value. */
+function partsOf(tolerance: number, kind: 'normal' | 'uniform', values: Record<string, string>) {
+  return Object.fromEntries(
+    Object.entries(values).map(([id, value]) => [id, { value, tolerance, spread: { kind } }]),
+  );
+}
+
 /**
  * Demo designs of the fictional workshop, in the engine's design document format
  * ('sigmatail-design' version 1). Values are invented but typical of such stages.
@@ -11,16 +18,16 @@ export const DEMO_DESIGNS: readonly Record<string, unknown>[] = [
     topology: 'cap-coupled',
     supply: { bPlus: 330, tail: 0 },
     tube: { type: '12AX7', spread: { perveanceSd: 10, muSd: 5, sectionCorrelation: 0.6 } },
-    parts: {
-      rl1: { value: '82k', tolerance: 5, spread: { kind: 'normal' } },
-      rl2: { value: '100k', tolerance: 5, spread: { kind: 'normal' } },
-      rk: { value: '1k', tolerance: 5, spread: { kind: 'normal' } },
-      rt: { value: '10k', tolerance: 5, spread: { kind: 'normal' } },
-      rg1: { value: '1M', tolerance: 5, spread: { kind: 'normal' } },
-      rg2: { value: '1M', tolerance: 5, spread: { kind: 'normal' } },
-      rload1: { value: '220k', tolerance: 5, spread: { kind: 'normal' } },
-      rload2: { value: '220k', tolerance: 5, spread: { kind: 'normal' } },
-    },
+    parts: partsOf(5, 'normal', {
+      rl1: '82k',
+      rl2: '100k',
+      rk: '1k',
+      rt: '10k',
+      rg1: '1M',
+      rg2: '1M',
+      rload1: '220k',
+      rload2: '220k',
+    }),
     specs: [
       // Balance and CMRR limits are the invented workshop's own specs.
       { metric: 'balanceDb', min: -0.5, max: 0.5, label: 'Output balance' },
@@ -41,14 +48,7 @@ export const DEMO_DESIGNS: readonly Record<string, unknown>[] = [
       type: '12AT7',
       spread: { perveanceSd: 12, muSd: 6, sectionCorrelation: 0.5, pairing: { quantity: 'gm', within: 10 } },
     },
-    parts: {
-      rl1: { value: '33k', tolerance: 1, spread: { kind: 'uniform' } },
-      rl2: { value: '36k', tolerance: 1, spread: { kind: 'uniform' } },
-      rk: { value: '220R', tolerance: 1, spread: { kind: 'uniform' } },
-      rt: { value: '22k', tolerance: 1, spread: { kind: 'uniform' } },
-      rg1: { value: '1M', tolerance: 1, spread: { kind: 'uniform' } },
-      rg2: { value: '1M', tolerance: 1, spread: { kind: 'uniform' } },
-    },
+    parts: partsOf(1, 'uniform', { rl1: '33k', rl2: '36k', rk: '220R', rt: '22k', rg1: '1M', rg2: '1M' }),
     specs: [
       { metric: 'balanceDb', min: -0.3, max: 0.3, label: 'Output balance' },
       { metric: 'cmrrDb', min: 20, label: 'Common-mode rejection' },
