@@ -4,6 +4,7 @@ import type { AuditEvent } from '../api/types.js';
 import { QueryStatus } from '../components/QueryState.js';
 import { Panel } from '../components/ui.js';
 import { formatWhen } from '../format/formatWhen.js';
+import { Table } from '../components/Table.js';
 
 function actorOf(e: AuditEvent): string {
   return e.user ? `${e.user.name} <${e.user.email}>` : 'system';
@@ -20,28 +21,28 @@ export function AuditPanel() {
       <QueryStatus query={audit} />
       {audit.data?.length === 0 && <p className="text-sm text-dim">Nothing recorded yet.</p>}
       {audit.data && audit.data.length > 0 && (
-        <table className="w-full text-sm">
-          <thead>
-            <tr className="border-b border-rule text-left text-xs text-dim">
+        <Table
+          className="w-full text-sm"
+          head={
+            <>
               <th className="py-2 font-medium">When</th>
               <th className="font-medium">Who</th>
               <th className="font-medium">Action</th>
               <th className="font-medium">Detail</th>
+            </>
+          }
+        >
+          {audit.data.map((e) => (
+            <tr key={e.id} className="border-b border-rule/60 align-top">
+              <td className="num py-1.5 pr-3 text-xs whitespace-nowrap">{formatWhen(e.at)}</td>
+              <td className="pr-3">{actorOf(e)}</td>
+              <td className="pr-3 font-medium">{e.action}</td>
+              <td className="num text-xs break-all text-dim">
+                {e.target ?? ''} {hasDetail(e.detail) ? JSON.stringify(e.detail) : ''}
+              </td>
             </tr>
-          </thead>
-          <tbody>
-            {audit.data.map((e) => (
-              <tr key={e.id} className="border-b border-rule/60 align-top">
-                <td className="num py-1.5 pr-3 text-xs whitespace-nowrap">{formatWhen(e.at)}</td>
-                <td className="pr-3">{actorOf(e)}</td>
-                <td className="pr-3 font-medium">{e.action}</td>
-                <td className="num text-xs break-all text-dim">
-                  {e.target ?? ''} {hasDetail(e.detail) ? JSON.stringify(e.detail) : ''}
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
+          ))}
+        </Table>
       )}
     </Panel>
   );

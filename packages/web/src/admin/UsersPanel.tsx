@@ -6,6 +6,7 @@ import { useMe } from '../auth/useMe.js';
 import { ErrorNote, QueryStatus } from '../components/QueryState.js';
 import { Button, Panel } from '../components/ui.js';
 import { formatWhen } from '../format/formatWhen.js';
+import { Table } from '../components/Table.js';
 
 export function UsersPanel() {
   const me = useMe();
@@ -28,58 +29,58 @@ export function UsersPanel() {
       {setRole.isError && <ErrorNote error={setRole.error} />}
       {remove.isError && <ErrorNote error={remove.error} />}
       {users.data && (
-        <table className="w-full text-sm">
-          <thead>
-            <tr className="border-b border-rule text-left text-xs text-dim">
+        <Table
+          className="w-full text-sm"
+          head={
+            <>
               <th className="py-2 font-medium">Name</th>
               <th className="font-medium">Email</th>
               <th className="font-medium">Role</th>
               <th className="sr-only">Actions</th>
-            </tr>
-          </thead>
-          <tbody>
-            {users.data.users.map((u: UserRow) => {
-              const self = u.id === me.id;
-              return (
-                <tr key={u.id} className="border-b border-rule/60">
-                  <td className="py-2">{u.name}</td>
-                  <td className="text-dim">{u.email}</td>
-                  <td>
-                    <label className="sr-only" htmlFor={`role-${u.id}`}>
-                      Role of {u.email}
-                    </label>
-                    <select
-                      id={`role-${u.id}`}
-                      value={u.role}
-                      disabled={self || setRole.isPending}
-                      title={self ? 'You cannot change your own role' : undefined}
-                      onChange={(e) => setRole.mutate({ id: u.id, role: e.target.value as Role })}
-                      className="rounded border border-rule bg-white px-2 py-1 disabled:bg-paper"
-                    >
-                      {ROLES.map((r) => (
-                        <option key={r} value={r}>
-                          {r}
-                        </option>
-                      ))}
-                    </select>
-                  </td>
-                  <td className="text-right">
-                    <Button
-                      tone="danger"
-                      disabled={self || remove.isPending}
-                      title={self ? 'You cannot remove yourself' : undefined}
-                      onClick={() => {
-                        if (window.confirm(`Remove ${u.email} from the workspace?`)) remove.mutate(u.id);
-                      }}
-                    >
-                      Remove
-                    </Button>
-                  </td>
-                </tr>
-              );
-            })}
-          </tbody>
-        </table>
+            </>
+          }
+        >
+          {users.data.users.map((u: UserRow) => {
+            const self = u.id === me.id;
+            return (
+              <tr key={u.id} className="border-b border-rule/60">
+                <td className="py-2">{u.name}</td>
+                <td className="text-dim">{u.email}</td>
+                <td>
+                  <label className="sr-only" htmlFor={`role-${u.id}`}>
+                    Role of {u.email}
+                  </label>
+                  <select
+                    id={`role-${u.id}`}
+                    value={u.role}
+                    disabled={self || setRole.isPending}
+                    title={self ? 'You cannot change your own role' : undefined}
+                    onChange={(e) => setRole.mutate({ id: u.id, role: e.target.value as Role })}
+                    className="rounded border border-rule bg-white px-2 py-1 disabled:bg-paper"
+                  >
+                    {ROLES.map((r) => (
+                      <option key={r} value={r}>
+                        {r}
+                      </option>
+                    ))}
+                  </select>
+                </td>
+                <td className="text-right">
+                  <Button
+                    tone="danger"
+                    disabled={self || remove.isPending}
+                    title={self ? 'You cannot remove yourself' : undefined}
+                    onClick={() => {
+                      if (window.confirm(`Remove ${u.email} from the workspace?`)) remove.mutate(u.id);
+                    }}
+                  >
+                    Remove
+                  </Button>
+                </td>
+              </tr>
+            );
+          })}
+        </Table>
       )}
       {users.data && users.data.invites.length > 0 && (
         <>

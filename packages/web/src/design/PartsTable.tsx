@@ -1,6 +1,7 @@
 import { useFormContext } from 'react-hook-form';
 import type { Design, PartName } from '@sigmatail/engine';
 import { PartRow } from './PartRow.js';
+import { Table } from '../components/Table.js';
 
 const REQUIRED: [PartName, string][] = [
   ['rl1', 'RL1'],
@@ -22,23 +23,23 @@ export function PartsTable({ readOnly }: { readOnly: boolean }) {
   const parts = watch('parts');
   return (
     <div className="overflow-x-auto">
-      <table className="w-full min-w-[640px]">
-        <thead>
-          <tr className="border-b border-rule text-left text-xs text-dim">
+      <Table
+        className="w-full min-w-[640px]"
+        head={
+          <>
             <th className="py-1.5 font-medium">Part</th>
             <th className="font-medium">Value (4k7, 2.2k, 1M…)</th>
             <th className="font-medium">Tolerance</th>
             <th className="font-medium">Spread</th>
             <th className="font-medium">Spread parameters</th>
-          </tr>
-        </thead>
-        <tbody>
-          {REQUIRED.map(([n, l]) => (
-            <PartRow key={n} name={n} label={l} />
-          ))}
-          {OPTIONAL.map(([n, l]) => parts?.[n] && <PartRow key={n} name={n} label={l} />)}
-        </tbody>
-      </table>
+          </>
+        }
+      >
+        {REQUIRED.map(([n, l]) => (
+          <PartRow key={n} name={n} label={l} />
+        ))}
+        {OPTIONAL.map(([n, l]) => parts?.[n] && <PartRow key={n} name={n} label={l} />)}
+      </Table>
       <div className="mt-2 flex flex-wrap gap-3 text-sm">
         {OPTIONAL.map(([n, l, dflt]) => (
           <label key={n} className="flex items-center gap-1.5 text-dim">

@@ -2,6 +2,7 @@ import { useFieldArray, useFormContext } from 'react-hook-form';
 import { METRICS, type Design } from '@sigmatail/engine';
 import { Button } from '../components/ui.js';
 import { cellInput, FieldError, optionalNumber } from './formHelpers.js';
+import { Table } from '../components/Table.js';
 
 const CHOOSABLE = METRICS.filter((m) => m.id !== 'valid');
 
@@ -17,75 +18,75 @@ export function SpecsTable({ readOnly }: { readOnly: boolean }) {
   const specs = watch('specs');
   return (
     <div>
-      <table className="w-full">
-        <thead>
-          <tr className="border-b border-rule text-left text-xs text-dim">
+      <Table
+        className="w-full"
+        head={
+          <>
             <th className="py-1.5 font-medium">Metric</th>
             <th className="font-medium">Min</th>
             <th className="font-medium">Max</th>
             <th className="font-medium">Label</th>
             <th className="sr-only">Remove</th>
-          </tr>
-        </thead>
-        <tbody>
-          {fields.map((f, i) => {
-            const unit = METRICS.find((m) => m.id === specs?.[i]?.metric)?.unit ?? '';
-            const err = errors.specs?.[i];
-            return (
-              <tr key={f.id} className="border-b border-rule/60 align-top">
-                <td className="py-1.5 pr-2">
-                  <select
-                    aria-label={`Spec ${i + 1} metric`}
-                    className={cellInput}
-                    {...register(`specs.${i}.metric`)}
-                  >
-                    {CHOOSABLE.map((m) => (
-                      <option key={m.id} value={m.id}>
-                        {m.label}
-                        {m.unit ? ` (${m.unit})` : ''}
-                      </option>
-                    ))}
-                  </select>
-                </td>
-                <td className="pr-2">
-                  <input
-                    aria-label={`Spec ${i + 1} min ${unit}`}
-                    type="number"
-                    step="any"
-                    className={`${cellInput} num w-24`}
-                    {...register(`specs.${i}.min`, optionalNumber)}
-                  />
-                  <FieldError error={err?.min} />
-                </td>
-                <td className="pr-2">
-                  <input
-                    aria-label={`Spec ${i + 1} max ${unit}`}
-                    type="number"
-                    step="any"
-                    className={`${cellInput} num w-24`}
-                    {...register(`specs.${i}.max`, optionalNumber)}
-                  />
-                  <FieldError error={err?.max} />
-                </td>
-                <td className="pr-2">
-                  <input
-                    aria-label={`Spec ${i + 1} label`}
-                    className={cellInput}
-                    {...register(`specs.${i}.label`)}
-                  />
-                </td>
-                <td>
-                  {!readOnly && (
-                    <Button tone="danger" onClick={() => remove(i)} aria-label={`Remove spec ${i + 1}`}>
-                      ✕
-                    </Button>
-                  )}
-                </td>
-              </tr>
-            );
-          })}
-        </tbody>
-      </table>
+          </>
+        }
+      >
+        {fields.map((f, i) => {
+          const unit = METRICS.find((m) => m.id === specs?.[i]?.metric)?.unit ?? '';
+          const err = errors.specs?.[i];
+          return (
+            <tr key={f.id} className="border-b border-rule/60 align-top">
+              <td className="py-1.5 pr-2">
+                <select
+                  aria-label={`Spec ${i + 1} metric`}
+                  className={cellInput}
+                  {...register(`specs.${i}.metric`)}
+                >
+                  {CHOOSABLE.map((m) => (
+                    <option key={m.id} value={m.id}>
+                      {m.label}
+                      {m.unit ? ` (${m.unit})` : ''}
+                    </option>
+                  ))}
+                </select>
+              </td>
+              <td className="pr-2">
+                <input
+                  aria-label={`Spec ${i + 1} min ${unit}`}
+                  type="number"
+                  step="any"
+                  className={`${cellInput} num w-24`}
+                  {...register(`specs.${i}.min`, optionalNumber)}
+                />
+                <FieldError error={err?.min} />
+              </td>
+              <td className="pr-2">
+                <input
+                  aria-label={`Spec ${i + 1} max ${unit}`}
+                  type="number"
+                  step="any"
+                  className={`${cellInput} num w-24`}
+                  {...register(`specs.${i}.max`, optionalNumber)}
+                />
+                <FieldError error={err?.max} />
+              </td>
+              <td className="pr-2">
+                <input
+                  aria-label={`Spec ${i + 1} label`}
+                  className={cellInput}
+                  {...register(`specs.${i}.label`)}
+                />
+              </td>
+              <td>
+                {!readOnly && (
+                  <Button tone="danger" onClick={() => remove(i)} aria-label={`Remove spec ${i + 1}`}>
+                    ✕
+                  </Button>
+                )}
+              </td>
+            </tr>
+          );
+        })}
+      </Table>
       {fields.length === 0 && (
         <p className="py-2 text-sm text-dim">No specs: runs will report distributions but no yield.</p>
       )}
