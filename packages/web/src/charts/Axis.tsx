@@ -17,6 +17,7 @@ interface AxisProps {
 export function Axis({ scale, orient, at, grid = 0, unit = '', ticks = 6 }: AxisProps) {
   const values = scale.ticks(ticks);
   const [r0, r1] = scale.range();
+  const labels = distinctLabels(values, unit === 'dB' || unit === '%' ? '' : unit);
   return (
     <g fontFamily={MONO} fontSize={10} fill={DIM}>
       {orient === 'bottom' ? (
@@ -24,9 +25,9 @@ export function Axis({ scale, orient, at, grid = 0, unit = '', ticks = 6 }: Axis
       ) : (
         <line y1={r0} y2={r1} x1={at} x2={at} stroke={DIM} />
       )}
-      {values.map((v) => {
+      {values.map((v, i) => {
         const p = scale(v);
-        const label = formatSi(v, unit === 'dB' || unit === '%' ? '' : unit, 3).replace(/ $/, '');
+        const label = labels[i];
         return orient === 'bottom' ? (
           <g key={v} transform={`translate(${p},0)`}>
             {grid > 0 && <line y1={at} y2={at - grid} stroke={GRID} />}
@@ -47,4 +48,12 @@ export function Axis({ scale, orient, at, grid = 0, unit = '', ticks = 6 }: Axis
       })}
     </g>
   );
+}
+
+/** Tick labels with the fewest significant figures (3 at least) that keep neighbouring ticks apart. */
+function distinctLabels(values: number[], unit: string): string[] {
+  for (let digits = 3; ; digits++) {
+    const labels = values.map((v) => formatSi(v, unit, digits).replace(/ $/, ''));
+    if (digits >= 8 || new Set(labels).size === labels.length) return labels;
+  }
 }
