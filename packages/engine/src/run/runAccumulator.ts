@@ -129,7 +129,8 @@ function yieldSummary(pass: number, samples: number): YieldSummary {
     yield: y,
     wilson: wilsonInterval(pass, samples),
     clopperPearson: clopperPearsonInterval(pass, samples),
-    ppm: (1 - y) * 1e6,
+    // From the fail count, so 17 fails in 20 000 is exactly 850 PPM (1 − y loses digits).
+    ppm: samples > 0 ? ((samples - pass) * 1e6) / samples : NaN,
   };
 }
 
