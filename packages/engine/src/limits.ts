@@ -11,6 +11,8 @@ export const MAX_SAMPLES = 100_000_000;
 export const MIN_TOLERANCE_PERCENT = 0;
 /** Exclusive upper bound on a part tolerance, percent. */
 export const MAX_TOLERANCE_PERCENT = 100;
+/** Largest tolerance-to-sigma ratio k of a normal-family spread (tolerance = k·σ); k > 0. */
+export const MAX_SPREAD_K = 10;
 /** Longest accepted run seed, characters. */
 export const MAX_SEED_LENGTH = 200;
 /** Sampling plans a run may use. */

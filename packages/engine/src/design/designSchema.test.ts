@@ -42,6 +42,11 @@ describe('parseDesign', () => {
     ['tolerance of 100 %', (d: Doc) => (d.parts.rl1.tolerance = 100), 'parts.rl1.tolerance'],
     ['negative tolerance', (d: Doc) => (d.parts.rl1.tolerance = -1), 'parts.rl1.tolerance'],
     ['unknown tube type', (d: Doc) => (d.tube.type = '12XY7'), 'tube.type'],
+    [
+      'spread k beyond what the engine samples',
+      (d: Doc) => (d.parts.rk.spread = { kind: 'normal', k: 20 }),
+      'parts.rk.spread.k',
+    ],
     ['NaN supply', (d: Doc) => (d.supply.bPlus = Number.NaN), 'supply.bPlus'],
     ['infinite value', (d: Doc) => (d.parts.rk.value = Infinity), 'parts.rk.value'],
     ['missing part', (d: Doc) => delete d.parts.rl2, 'parts.rl2'],

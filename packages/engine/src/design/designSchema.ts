@@ -1,10 +1,11 @@
 import { z } from 'zod';
 import { TUBE_TYPES } from '../tubes/tubeTypes.js';
 import { METRIC_IDS } from '../model/metrics.js';
+import { MAX_SPREAD_K, MAX_TOLERANCE_PERCENT } from '../limits.js';
 import { parseValue } from '../values/parseValue.js';
 
 const finite = () => z.number().refine(Number.isFinite, 'must be a finite number');
-const spreadK = finite().positive().optional();
+const spreadK = finite().positive().max(MAX_SPREAD_K).optional();
 
 /**
  * A spread (distribution) of a part value around nominal; tolerance = k·σ where it applies.
@@ -38,7 +39,7 @@ const partValue = z.union([
 export const partSchema = z
   .object({
     value: partValue,
-    tolerance: finite().min(0).lt(100, 'must be below 100 %'),
+    tolerance: finite().min(0).lt(MAX_TOLERANCE_PERCENT, `must be below ${MAX_TOLERANCE_PERCENT} %`),
     spread: spreadSchema,
   })
   .refine((p) => p.spread.kind !== 'binned' || p.spread.inner < p.tolerance, {

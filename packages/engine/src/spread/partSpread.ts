@@ -1,3 +1,4 @@
+import { MAX_SPREAD_K } from '../limits.js';
 import { normalCdf } from './normalCdf.js';
 import { normalQuantile } from './normalQuantile.js';
 import type { PartSpec } from './spreadTypes.js';
@@ -56,7 +57,7 @@ export function preparePartSpread(part: PartSpec, field = 'part'): PartSpread {
   if (s.kind === 'fixed' || t === 0) return { ...base, kind: 'fixed', varied: false };
   if (s.kind === 'uniform') return { ...base, kind: 'uniform', varied: true, scale: t / 100 };
   const k = s.k ?? 3;
-  if (!(k > 0 && k <= 10)) throw new RangeError(`${field}.spread.k must be in (0, 10] (got ${k})`);
+  if (!(k > 0 && k <= MAX_SPREAD_K)) throw new RangeError(`${field}.spread.k must be in (0, 10] (got ${k})`);
   const sigma = t / 100 / k;
   if (s.kind === 'normal') return { ...base, kind: 'normal', varied: true, sigma };
   if (s.kind === 'lognormal') {
