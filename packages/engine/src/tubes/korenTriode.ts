@@ -30,7 +30,7 @@ export interface TriodePoint {
  *   E1 = (Ep/kp)·ln(1 + exp(kp·(1/mu + Eg/sqrt(kvb + Ep²))))
  *   Ip = (E1^ex / kg1)·(1 + sgn(E1))
  * The (1 + sgn) factor is kept as published: for E1 > 0 it doubles the current, Ip = 2·E1^ex/kg1.
- * The published SPICE listing writes the same thing as (pwr(E1,ex) + pwrs(E1,ex))/kg1 (from
+ * The paper's model listing writes the same thing as (pwr(E1,ex) + pwrs(E1,ex))/kg1 (from
  * memory), so the published parameter sets were fitted with the factor 2 and the catalog assumes
  * it. Checked against the datasheet typical points (tubeCatalog.test.ts): the 12AX7 set gives
  * 0.95 mA at 250 V / −2 V with the factor (datasheet 1.2 mA) and 0.48 mA without it, and it
