@@ -9,6 +9,7 @@ import { findSessionUser } from './findSessionUser.js';
 import { loginRateLimit } from './loginRateLimit.js';
 import { presentMe } from './presentMe.js';
 import { requireAuth } from './requireRole.js';
+import { sessionCacheFor } from './sessionCache.js';
 import { clearSessionCookie, setSessionCookie } from './sessionCookie.js';
 
 const loginBody = z.object({ email: emailField, password: z.string().min(1, 'is required').max(1000) });
@@ -60,6 +61,7 @@ export function createAuthRouter(deps: AppDeps): Router {
         .set((eb) => ({ session_epoch: eb('session_epoch', '+', 1) }))
         .where('id', '=', req.user.id)
         .execute();
+      sessionCacheFor(db).forgetUser(req.user.id);
     }
     if (req.user) {
       await recordAudit(db, {

@@ -1,24 +1,33 @@
 import type { RequestHandler } from 'express';
 import type { AppDeps } from '../appDeps.js';
 import { findSessionUser } from './findSessionUser.js';
+import { sessionCacheFor } from './sessionCache.js';
 import { SESSION_COOKIE, verifySessionToken } from './sessionToken.js';
 
 /**
- * Sets req.user from the session cookie. The user and membership are read on every request, so a
- * removed member or a changed role takes effect at once, and a bumped session_epoch (sign-out
- * everywhere, password reset) voids older tokens. An invalid cookie just means "not signed in".
+ * Sets req.user from the session cookie. A removed member, a changed role or a bumped
+ * session_epoch (sign-out everywhere, password reset) takes effect at once: the user and
+ * membership are read from the database, through a one-second cache of resolved tokens that the
+ * routes making those changes clear (see SessionCache; other server processes see a change within
+ * that second). An invalid cookie just means "not signed in".
  */
 export function loadSession({ db, config }: AppDeps): RequestHandler {
+  const cache = sessionCacheFor(db);
   return async (req, _res, next) => {
     const token: unknown = req.cookies?.[SESSION_COOKIE];
     if (typeof token !== 'string' || !token) return next();
-    const claims = await verifySessionToken(token, config.secret);
-    if (!claims) return next();
-    const row = await findSessionUser(db, { userId: claims.userId, workspaceId: claims.workspaceId });
-    if (row && row.sessionEpoch === claims.epoch) {
-      const { sessionEpoch: _e, passwordHash: _p, ...user } = row;
-      req.user = user;
-    }
+    const user = await cache.get(token, async () => {
+      const claims = await verifySessionToken(token, config.secret);
+      if (!claims) return undefined;
+      const row = await findSessionUser(db, { userId: claims.userId, workspaceId: claims.workspaceId });
+      if (!row || row.sessionEpoch !== claims.epoch) {
+        return { userId: claims.userId, user: null, expiresAt: claims.expiresAt };
+      }
+      const { sessionEpoch: _e, passwordHash: _p, ...sessionUser } = row;
+      return { userId: claims.userId, user: sessionUser, expiresAt: claims.expiresAt };
+    });
+    // A copy per request: the cached object is shared by every request on this session.
+    if (user) req.user = { ...user };
     next();
   };
 }

@@ -7,6 +7,7 @@ import { emailField, newPasswordField, tokenField } from '../http/fields.js';
 import { HttpError } from '../http/httpError.js';
 import { findSessionUser } from './findSessionUser.js';
 import { forgotRateLimit } from './loginRateLimit.js';
+import { sessionCacheFor } from './sessionCache.js';
 import { hashToken, newMailToken } from './mailToken.js';
 
 // One hour: common practice, no source.
@@ -46,7 +47,7 @@ export function createPasswordResetRouter({ db, mailer, config }: AppDeps): Rout
   router.post('/auth/reset', async (req, res) => {
     const { token, password } = resetBody.parse(req.body ?? {});
     const passwordHash = await bcrypt.hash(password, 10);
-    await db.transaction().execute(async (tx) => {
+    const userId = await db.transaction().execute(async (tx) => {
       // Claiming the row in the update makes a token single-use even under concurrent requests.
       const reset = await tx
         .updateTable('password_resets')
@@ -69,7 +70,9 @@ export function createPasswordResetRouter({ db, mailer, config }: AppDeps): Rout
         userId: reset.user_id,
         action: 'auth.reset',
       });
+      return reset.user_id;
     });
+    sessionCacheFor(db).forgetUser(userId); // older sessions are refused from the next request on
     res.json({ ok: true });
   });
 

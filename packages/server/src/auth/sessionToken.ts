@@ -25,14 +25,25 @@ export async function signSessionToken(
     .sign(key(secret));
 }
 
-/** The claims of a valid, unexpired token, or null (bad signature, expired, malformed). */
-export async function verifySessionToken(token: string, secret: string): Promise<SessionClaims | null> {
+/**
+ * The claims of a valid, unexpired token and when it expires (epoch ms), or null (bad signature,
+ * expired, malformed).
+ */
+export async function verifySessionToken(
+  token: string,
+  secret: string,
+): Promise<(SessionClaims & { expiresAt: number }) | null> {
   try {
     const { payload } = await jwtVerify(token, key(secret), { algorithms: ['HS256'] });
     if (typeof payload.sub !== 'string' || typeof payload.ws !== 'string' || typeof payload.ep !== 'number') {
       return null;
     }
-    return { userId: payload.sub, workspaceId: payload.ws, epoch: payload.ep };
+    return {
+      userId: payload.sub,
+      workspaceId: payload.ws,
+      epoch: payload.ep,
+      expiresAt: typeof payload.exp === 'number' ? payload.exp * 1000 : Infinity,
+    };
   } catch {
     return null;
   }

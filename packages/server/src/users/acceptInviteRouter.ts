@@ -6,6 +6,7 @@ import { z } from 'zod';
 import type { AppDeps } from '../appDeps.js';
 import { recordAudit } from '../audit/recordAudit.js';
 import { findSessionUser } from '../auth/findSessionUser.js';
+import { sessionCacheFor } from '../auth/sessionCache.js';
 import { hashToken } from '../auth/mailToken.js';
 import { presentMe } from '../auth/presentMe.js';
 import { setSessionCookie } from '../auth/sessionCookie.js';
@@ -94,6 +95,8 @@ export function createAcceptInviteRouter({ db, config }: AppDeps): Router {
       });
       return { id: user.id, workspaceId: invite.workspace_id };
     });
+    // A rejoining member's older session for this workspace is valid again (same epoch).
+    sessionCacheFor(db).forgetUser(userId.id);
     const me = await findSessionUser(db, { userId: userId.id, workspaceId: userId.workspaceId });
     if (!me) throw new HttpError(409, 'the membership was removed meanwhile');
     await setSessionCookie(

@@ -3,6 +3,7 @@ import { z } from 'zod';
 import type { AppDeps } from '../appDeps.js';
 import { recordAudit } from '../audit/recordAudit.js';
 import { requireRole } from '../auth/requireRole.js';
+import { sessionCacheFor } from '../auth/sessionCache.js';
 import { roleField } from '../http/fields.js';
 import { uuidParam } from '../http/uuidParam.js';
 import {
@@ -19,6 +20,7 @@ const patchBody = z.object({ role: roleField });
 /** GET /users (members and open invites), PATCH /users/:id {role}, DELETE /users/:id (admin only). */
 export function createUsersRouter({ db }: AppDeps): Router {
   const router = Router();
+  const sessions = sessionCacheFor(db);
 
   router.get('/users', requireRole('admin'), async (req, res) => {
     const ws = req.user!.workspaceId;
@@ -41,6 +43,7 @@ export function createUsersRouter({ db }: AppDeps): Router {
         detail: { from: before, to: role },
       });
     });
+    sessions.forgetUser(userId); // the new role applies to the member's very next request
     const user = await db
       .selectFrom('users')
       .select(['id', 'email', 'name'])
@@ -64,6 +67,7 @@ export function createUsersRouter({ db }: AppDeps): Router {
         detail: { role: before },
       });
     });
+    sessions.forgetUser(userId); // the removed member's very next request is refused
     res.status(204).end();
   });
 

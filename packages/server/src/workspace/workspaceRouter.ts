@@ -5,6 +5,7 @@ import { z } from 'zod';
 import type { AppDeps } from '../appDeps.js';
 import { recordAudit } from '../audit/recordAudit.js';
 import { requireAuth, requireRole } from '../auth/requireRole.js';
+import { sessionCacheFor } from '../auth/sessionCache.js';
 import { nameField } from '../http/fields.js';
 
 const settingsPatch = z
@@ -65,6 +66,7 @@ export function createWorkspaceRouter({ db }: AppDeps): Router {
         detail: body,
       });
     });
+    if (body.name) sessionCacheFor(db).forgetAll(); // the name is part of every member's session
     res.json({ workspace: await load(user.workspaceId) });
   });
 

@@ -1,0 +1,118 @@
+import type { Database } from '@sigmatail/db';
+import type { Kysely } from 'kysely';
+import type { SessionUser } from './requireRole.js';
+
+/** What resolving a token gives: the signed-in user (null = valid signature, but no access) and when the token expires (ms). */
+export interface ResolvedSession {
+  user: SessionUser | null;
+  expiresAt: number;
+}
+
+interface Entry {
+  user: SessionUser | null;
+  userId: string;
+  /** Epoch ms after which the entry must not be used (the TTL or the token's own expiry). */
+  until: number;
+}
+
+/**
+ * A short-lived cache of resolved session tokens (signature checked, user and membership read), so
+ * many requests on one session cost one token check and one query per `ttlMs`.
+ *
+ * A removed member, a changed role or a bumped session_epoch must still take effect at once, so
+ * every route that changes them calls forgetUser / forgetAll after its transaction commits. That is
+ * in-process only: another server process on the same database sees the change within `ttlMs`.
+ * A load that started before a forget is not stored (generation check), so a lookup racing a
+ * change cannot put the old answer back. Concurrent misses on one token share one load.
+ */
+export class SessionCache {
+  private readonly entries = new Map<string, Entry>();
+  private readonly loading = new Map<string, Promise<SessionUser | null>>();
+  private generation = 0;
+
+  constructor(
+    private readonly ttlMs = 1_000,
+    private readonly maxEntries = 10_000,
+    private readonly now: () => number = () => Date.now(),
+  ) {}
+
+  /**
+   * The user of `token`, from the cache or else from `load` (which returns undefined for a token
+   * that does not verify; such tokens are not cached). `userId` names whom the entry belongs to
+   * for forgetUser; it is read from `load`'s answer.
+   */
+  async get(
+    token: string,
+    load: () => Promise<(ResolvedSession & { userId: string }) | undefined>,
+  ): Promise<SessionUser | null> {
+    const hit = this.entries.get(token);
+    if (hit) {
+      if (this.now() < hit.until) return hit.user;
+      this.entries.delete(token);
+    }
+    const pending = this.loading.get(token);
+    if (pending) return pending;
+    const generation = this.generation;
+    const promise = load()
+      .then((resolved) => {
+        if (!resolved) return null;
+        if (generation === this.generation) {
+          this.store(token, {
+            user: resolved.user,
+            userId: resolved.userId,
+            until: Math.min(this.now() + this.ttlMs, resolved.expiresAt),
+          });
+        }
+        return resolved.user;
+      })
+      .finally(() => {
+        if (this.loading.get(token) === promise) this.loading.delete(token);
+      });
+    this.loading.set(token, promise);
+    return promise;
+  }
+
+  /** Drops every entry of one user (membership, role, session epoch or password changed). */
+  forgetUser(userId: string): void {
+    this.generation++;
+    this.loading.clear();
+    for (const [token, entry] of this.entries) if (entry.userId === userId) this.entries.delete(token);
+  }
+
+  /** Drops everything (e.g. a workspace renamed: its name is part of every member's session). */
+  forgetAll(): void {
+    this.generation++;
+    this.loading.clear();
+    this.entries.clear();
+  }
+
+  get size(): number {
+    return this.entries.size;
+  }
+
+  private store(token: string, entry: Entry): void {
+    this.entries.delete(token);
+    // Maps iterate in insertion order: the first key is the oldest entry.
+    while (this.entries.size >= this.maxEntries) {
+      const oldest = this.entries.keys().next().value;
+      if (oldest === undefined) break;
+      this.entries.delete(oldest);
+    }
+    this.entries.set(token, entry);
+  }
+}
+
+const caches = new WeakMap<Kysely<Database>, SessionCache>();
+
+/**
+ * The session cache of one database handle: loadSession reads through it and the routes that
+ * change memberships, roles, epochs or passwords (all given the same AppDeps.db) forget through it.
+ */
+export function sessionCacheFor(db: Kysely<Database>): SessionCache {
+  let cache = caches.get(db);
+  if (!cache) {
+    cache = new SessionCache();
+    caches.set(db, cache);
+  }
+  return cache;
+}
