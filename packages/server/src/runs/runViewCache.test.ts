@@ -27,3 +27,34 @@ describe('RunViewCache', () => {
     }
   });
 });
+
+describe('RunViewCache under many pollers', () => {
+  it('shares one load among concurrent misses, each caller still checked by workspace', async () => {
+    const cache = new RunViewCache(250);
+    const load = vi.fn(async () => ({ view: view('running'), workspaceId: 'w1' }));
+    const answers = await Promise.all([
+      ...Array.from({ length: 20 }, () => cache.get('w1', 'r1', load)),
+      cache.get('w2', 'r1', load),
+    ]);
+    expect(load).toHaveBeenCalledTimes(1);
+    expect(answers.slice(0, 20).every((v) => v?.status === 'running')).toBe(true);
+    expect(answers[20]).toBeUndefined();
+  });
+
+  it('does not store a load that was in flight when the run was forgotten', async () => {
+    const cache = new RunViewCache(250);
+    let release!: () => void;
+    const gate = new Promise<void>((r) => (release = r));
+    const stale = cache.get('w1', 'r1', async () => {
+      await gate; // read before the cancel committed
+      return { view: view('running'), workspaceId: 'w1' };
+    });
+    cache.forget('r1');
+    const fresh = vi.fn(async () => ({ view: view('cancelled'), workspaceId: 'w1' }));
+    expect(await cache.get('w1', 'r1', fresh)).toEqual(view('cancelled'));
+    release();
+    await stale;
+    expect(await cache.get('w1', 'r1', fresh)).toEqual(view('cancelled'));
+    expect(fresh).toHaveBeenCalledTimes(1);
+  });
+});

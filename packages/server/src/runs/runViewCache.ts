@@ -1,34 +1,50 @@
 import type { RunView } from './runSchemas.js';
 
+type Loaded = { view: RunView; workspaceId: string } | undefined;
+
 /**
  * A short-lived cache of run views for status polling (many clients polling one run's progress).
  * A view is at most `ttlMs` old; the caller still checks the workspace of the signed-in user, and
- * changes made through this process (cancel) drop the entry at once.
+ * changes made through this process (cancel) drop the entry at once. Concurrent misses on one run
+ * share one load, so an expiring entry under many pollers costs one query, not one per poller.
  */
 export class RunViewCache {
   private readonly entries = new Map<string, { view: RunView; workspaceId: string; at: number }>();
+  private readonly loading = new Map<string, Promise<Loaded>>();
+  private generation = 0;
 
   constructor(
     private readonly ttlMs = 250,
     private readonly maxEntries = 1_000,
   ) {}
 
-  async get(
-    workspaceId: string,
-    runId: string,
-    load: () => Promise<{ view: RunView; workspaceId: string } | undefined>,
-  ): Promise<RunView | undefined> {
+  async get(workspaceId: string, runId: string, load: () => Promise<Loaded>): Promise<RunView | undefined> {
     const now = Date.now();
     const hit = this.entries.get(runId);
     if (hit && now - hit.at < this.ttlMs) return hit.workspaceId === workspaceId ? hit.view : undefined;
-    const loaded = await load();
-    if (!loaded) return undefined;
-    if (this.entries.size >= this.maxEntries) this.entries.clear();
-    this.entries.set(runId, { ...loaded, at: now });
-    return loaded.workspaceId === workspaceId ? loaded.view : undefined;
+    let pending = this.loading.get(runId);
+    if (!pending) {
+      const generation = this.generation;
+      const started = load().then((loaded) => {
+        // A load that was running when forget() was called may hold the old state: not stored.
+        if (loaded && generation === this.generation) {
+          if (this.entries.size >= this.maxEntries) this.entries.clear();
+          this.entries.set(runId, { ...loaded, at: now });
+        }
+        return loaded;
+      });
+      pending = started.finally(() => {
+        if (this.loading.get(runId) === pending) this.loading.delete(runId);
+      });
+      this.loading.set(runId, pending);
+    }
+    const loaded = await pending;
+    return loaded && loaded.workspaceId === workspaceId ? loaded.view : undefined;
   }
 
   forget(runId: string): void {
+    this.generation++;
     this.entries.delete(runId);
+    this.loading.delete(runId);
   }
 }
