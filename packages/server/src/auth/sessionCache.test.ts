@@ -36,12 +36,26 @@ describe('SessionCache', () => {
   it('answers repeats of a token from the cache until the TTL passes', async () => {
     const t = setup();
     expect(await t.cache.get('tok', t.load())).toEqual(user('u1'));
-    t.tick(999);
+    t.tick(499);
     expect(await t.cache.get('tok', t.load())).toEqual(user('u1'));
     expect(t.calls()).toBe(1);
-    t.tick(1);
+    t.tick(501); // a full TTL since the load, with no request in between: must reload
     await t.cache.get('tok', t.load());
     expect(t.calls()).toBe(2);
+  });
+
+  it('reloads in the background from half the TTL on, answering from the cache meanwhile', async () => {
+    const t = setup();
+    await t.cache.get('tok', t.load());
+    t.setAnswer(user('u1', 'viewer'));
+    t.tick(500);
+    expect((await t.cache.get('tok', t.load()))!.role).toBe('engineer'); // still fresh: cached answer
+    expect(t.calls()).toBe(2); // ...and a reload started
+    await Promise.resolve();
+    expect((await t.cache.get('tok', t.load()))!.role).toBe('viewer');
+    t.tick(999); // within the reload's TTL: answered from the cache, and reloaded again
+    await t.cache.get('tok', t.load());
+    expect(t.calls()).toBe(3);
   });
 
   it('never serves an entry past the token expiry', async () => {

@@ -11,6 +11,8 @@ export interface ResolvedSession {
 interface Entry {
   user: SessionUser | null;
   userId: string;
+  /** Epoch ms from which a hit also starts a background reload (half the TTL). */
+  refreshAt: number;
   /** Epoch ms after which the entry must not be used (the TTL or the token's own expiry). */
   until: number;
 }
@@ -23,7 +25,8 @@ interface Entry {
  * every route that changes them calls forgetUser / forgetAll after its transaction commits. That is
  * in-process only: another server process on the same database sees the change within `ttlMs`.
  * A load that started before a forget is not stored (generation check), so a lookup racing a
- * change cannot put the old answer back. Concurrent misses on one token share one load.
+ * change cannot put the old answer back. Concurrent misses on one token share one load, and a hit
+ * in the second half of the TTL reloads in the background, so steady traffic never waits on it.
  */
 export class SessionCache {
   private readonly entries = new Map<string, Entry>();
@@ -45,14 +48,28 @@ export class SessionCache {
     token: string,
     load: () => Promise<(ResolvedSession & { userId: string }) | undefined>,
   ): Promise<SessionUser | null> {
+    const now = this.now();
     const hit = this.entries.get(token);
-    if (hit) {
-      if (this.now() < hit.until) return hit.user;
-      this.entries.delete(token);
+    if (hit && now < hit.until) {
+      // Refresh ahead in the background, so a busy session never waits for its entry to expire.
+      if (now >= hit.refreshAt && !this.loading.has(token)) {
+        this.load(token, load).catch(() => undefined);
+      }
+      return hit.user;
     }
+    if (hit) this.entries.delete(token);
+    return this.load(token, load);
+  }
+
+  /** One shared lookup per token; its answer is stored unless a forget happened meanwhile. */
+  private load(
+    token: string,
+    load: () => Promise<(ResolvedSession & { userId: string }) | undefined>,
+  ): Promise<SessionUser | null> {
     const pending = this.loading.get(token);
     if (pending) return pending;
     const generation = this.generation;
+    const started = this.now();
     const promise = load()
       .then((resolved) => {
         if (!resolved) return null;
@@ -60,7 +77,8 @@ export class SessionCache {
           this.store(token, {
             user: resolved.user,
             userId: resolved.userId,
-            until: Math.min(this.now() + this.ttlMs, resolved.expiresAt),
+            refreshAt: started + this.ttlMs / 2,
+            until: Math.min(started + this.ttlMs, resolved.expiresAt),
           });
         }
         return resolved.user;

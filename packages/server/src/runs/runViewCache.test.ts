@@ -58,3 +58,25 @@ describe('RunViewCache under many pollers', () => {
     expect(fresh).toHaveBeenCalledTimes(1);
   });
 });
+
+describe('RunViewCache refresh ahead', () => {
+  it('reloads in the background from half the TTL on, answering from the cache meanwhile', async () => {
+    vi.useFakeTimers();
+    try {
+      const cache = new RunViewCache(250);
+      const load = vi.fn(async () => ({ view: view('running'), workspaceId: 'w1' }));
+      await cache.get('w1', 'r1', load);
+      vi.advanceTimersByTime(124);
+      await cache.get('w1', 'r1', load);
+      expect(load).toHaveBeenCalledTimes(1);
+      vi.advanceTimersByTime(1);
+      load.mockResolvedValueOnce({ view: view('done'), workspaceId: 'w1' });
+      expect(await cache.get('w1', 'r1', load)).toEqual(view('running')); // still fresh
+      expect(load).toHaveBeenCalledTimes(2);
+      await Promise.resolve();
+      expect(await cache.get('w1', 'r1', load)).toEqual(view('done'));
+    } finally {
+      vi.useRealTimers();
+    }
+  });
+});
