@@ -1,6 +1,5 @@
 import { scaleLinear, scaleLog } from 'd3';
 import type { Ref } from 'react';
-import { formatSi } from '../format/formatSi.js';
 import { ChartSvg } from './ChartSvg.js';
 import { ValueAxis } from './ValueAxis.js';
 import { DIM, MARGIN, MONO, SERIES_COLOURS } from './chartTheme.js';
@@ -76,7 +75,7 @@ export function ConvergencePlot({
           textAnchor="middle"
           fontFamily={MONO}
         >
-          {formatSi(t)}
+          {t >= 1000 ? `1e${Math.round(Math.log10(t))}` : t}
         </text>
       ))}
       <text x={width - MARGIN.right} y={height - 6} fontSize={10} fill={DIM} textAnchor="end">
