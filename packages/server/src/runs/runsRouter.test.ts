@@ -75,9 +75,22 @@ describe('runs API', () => {
   it('refuses a revision the engine cannot set up, naming the part, before anything is queued', async () => {
     const doc = exampleDesign() as { parts: Record<string, unknown> };
     doc.parts.rt = { value: '10k', tolerance: 5, spread: { kind: 'normal', k: 20 } }; // k beyond what the engine samples
-    const created = await engineer.post('/api/designs', { document: doc });
+    // Saving such a design is refused now; a revision stored before that rule may still hold one.
+    const refused = await engineer.post('/api/designs', { document: doc });
+    expect(refused.status).toBe(400);
+    const created = await engineer.post('/api/designs', { document: exampleDesign() });
     expect(created.status).toBe(201);
-    const res = await engineer.post('/api/runs', { ...SMALL, designId: created.body.design.id });
+    await app.deps.db
+      .insertInto('design_revisions')
+      .values({
+        design_id: created.body.design.id,
+        rev: 2,
+        document: JSON.stringify(doc),
+        message: 'stored before the k limit',
+        created_by: team.engineer.id,
+      })
+      .execute();
+    const res = await engineer.post('/api/runs', { ...SMALL, designId: created.body.design.id, revision: 2 });
     expect(res.status).toBe(422);
     expect(res.body.error.field).toBe('revision');
     expect(res.body.error.message).toMatch(/parts\.rt\.spread\.k/);
