@@ -58,7 +58,10 @@ try {
   console.log(
     `run progress during the load: ${before.progress.done}/${before.progress.total} tasks, status ${before.status}`,
   );
-  await stack.api('POST', `/api/runs/${id}/cancel`);
+  // A long load can outlast the run; only a run still in progress can be cancelled.
+  const { run: after } = await stack.api('GET', `/api/runs/${id}`);
+  if (!['done', 'failed', 'cancelled'].includes(after.status))
+    await stack.api('POST', `/api/runs/${id}/cancel`);
 } finally {
   await worker.stop();
   await stack.server.stop();
