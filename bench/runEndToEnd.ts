@@ -113,6 +113,10 @@ export async function timedRun(stack: Stack, samples: number, seed: string) {
     samples,
     seed,
     plan: 'random',
+    // BENCH_ANALYSES=off times the Monte Carlo chunks alone (the once-per-run analyses are one task).
+    ...(process.env.BENCH_ANALYSES === 'off'
+      ? { analyses: { influence: false, varianceIndices: false, worstCase: false } }
+      : {}),
   });
   for (;;) {
     const { run } = await stack.api('GET', `/api/runs/${id}`);
