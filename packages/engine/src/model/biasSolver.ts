@@ -147,17 +147,9 @@ function evalAt(c: BiasCircuit, bp: BiasPoint): void {
  * solveBiasInto(circuit, bp, false); // 'ok'; bp.ia1 ≈ 1.3e-3 A for the guitar example's 12AX7 pair
  */
 export function solveBiasInto(c: BiasCircuit, bp: BiasPoint, warm: boolean, stepTol = 1e-12): BiasStatus {
-  if (!partsValid(c)) {
-    X[0] = 0;
-    X[1] = 0;
-    return finish(c, bp, 'invalid-parts', 0);
-  }
+  const refused = refuseCircuit(c, bp);
+  if (refused !== null) return refused;
   const span = c.bPlus - c.tail;
-  if (!(span > 0) || !(c.bPlus > 0)) {
-    X[0] = 0;
-    X[1] = 0;
-    return finish(c, bp, 'supply-too-low', 0);
-  }
   const rkk = c.rk + c.rt;
   const rg = c.capCoupled ? c.rk : rkk;
   const max1 = span / (c.rl1 + rkk);
@@ -244,17 +236,9 @@ function innerIa1(c: BiasCircuit, bp: BiasPoint, ia2: number, max1: number): num
  * solveBiasBracketedInto(circuit, createBiasPoint()); // same point as solveBiasInto
  */
 export function solveBiasBracketedInto(c: BiasCircuit, bp: BiasPoint): BiasStatus {
-  if (!partsValid(c)) {
-    X[0] = 0;
-    X[1] = 0;
-    return finish(c, bp, 'invalid-parts', 0);
-  }
+  const refused = refuseCircuit(c, bp);
+  if (refused !== null) return refused;
   const span = c.bPlus - c.tail;
-  if (!(span > 0) || !(c.bPlus > 0)) {
-    X[0] = 0;
-    X[1] = 0;
-    return finish(c, bp, 'supply-too-low', 0);
-  }
   const rkk = c.rk + c.rt;
   return bisect(c, bp, span / (c.rl1 + rkk), span / (c.rl2 + rkk));
 }
@@ -283,6 +267,21 @@ function bisect(c: BiasCircuit, bp: BiasPoint, max1: number, max2: number): Bias
 }
 
 /** Resistances positive (Rk may be 0) and finite, multipliers positive; NaN fails every test. */
+/** The diagnosis for a circuit no solve can bias (bad parts, no supply span), else null. */
+function refuseCircuit(c: BiasCircuit, bp: BiasPoint): BiasStatus | null {
+  if (!partsValid(c)) {
+    X[0] = 0;
+    X[1] = 0;
+    return finish(c, bp, 'invalid-parts', 0);
+  }
+  if (!(c.bPlus - c.tail > 0) || !(c.bPlus > 0)) {
+    X[0] = 0;
+    X[1] = 0;
+    return finish(c, bp, 'supply-too-low', 0);
+  }
+  return null;
+}
+
 function partsValid(c: BiasCircuit): boolean {
   return (
     c.rl1 > 0 &&
