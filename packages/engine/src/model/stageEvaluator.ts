@@ -1,8 +1,8 @@
 import type { ResolvedDesign } from '../design/designSchema.js';
 import { TUBE_CATALOG, type TubeSpec } from '../tubes/tubeCatalog.js';
 import { createBiasPoint, solveBiasInto, type BiasCircuit, type BiasPoint } from './biasSolver.js';
-import { closedFormGainsInto, createStageGains, type StageGains } from './closedFormGains.js';
-import { reducedNodalGainsInto, type SmallSignalCircuit } from './reducedNodalGains.js';
+import { createStageGains, type StageGains } from './closedFormGains.js';
+import type { SmallSignalCircuit } from './reducedNodalGains.js';
 
 /** Per-sample values of the kernel inputs (Ω; multipliers dimensionless). Same names as INPUTS. */
 export interface StageInputs {
@@ -111,16 +111,16 @@ export function solveStageBias(
   warm: boolean,
   stepTol = 1e-12,
 ): BiasPoint['status'] {
-  const b = ctx.bias;
-  b.rl1 = x.rl1;
-  b.rl2 = x.rl2;
-  b.rk = x.rk;
-  b.rt = x.rt;
-  b.perv1 = x.perv1;
-  b.perv2 = x.perv2;
-  b.muScale1 = x.mu1;
-  b.muScale2 = x.mu2;
-  return solveBiasInto(b, ctx.bp, warm, stepTol);
+  const v = DC_SCRATCH;
+  v[DC_RL1] = x.rl1;
+  v[DC_RL2] = x.rl2;
+  v[DC_RK] = x.rk;
+  v[DC_RT] = x.rt;
+  v[DC_PERV1] = x.perv1;
+  v[DC_PERV2] = x.perv2;
+  v[DC_MU1] = x.mu1;
+  v[DC_MU2] = x.mu2;
+  return solveStageBiasArr(ctx, v, warm, stepTol);
 }
 
 /** Slots of the DC scratch array read by {@link solveStageBiasArr} (the bias predictor's order). */
@@ -134,6 +134,8 @@ export const DC_MU1 = 6;
 export const DC_MU2 = 7;
 /** Length of the DC scratch array. */
 export const DC_SLOTS = 8;
+// Scratch for the object-input path above (the engine is single-threaded per pool thread).
+const DC_SCRATCH = new Float64Array(DC_SLOTS);
 
 /**
  * {@link solveStageBias} with the DC inputs in the DC_* slots of a Float64Array, for the
@@ -158,37 +160,4 @@ export function solveStageBiasArr(
   b.muScale1 = dcv[DC_MU1];
   b.muScale2 = dcv[DC_MU2];
   return solveBiasInto(b, ctx.bp, warm, stepTol);
-}
-
-/**
- * Small-signal gains of one sample from section parameters mu, rp (Ω) into ctx.gains: the closed
- * form when it is exact for this design, else the hand-reduced nodal solve.
- *
- * @example
- * stageGains(ctx, x, 95, 95, 60e3, 60e3).a11;
- */
-export function stageGains(
-  ctx: StageContext,
-  x: StageInputs,
-  mu1: number,
-  mu2: number,
-  rp1: number,
-  rp2: number,
-): StageGains {
-  if (ctx.closedForm) return closedFormGainsInto(mu1, mu2, rp1, rp2, x.rl1, x.rl2, x.rk + x.rt, ctx.gains);
-  const s = ctx.ss;
-  s.mu1 = mu1;
-  s.mu2 = mu2;
-  s.rp1 = rp1;
-  s.rp2 = rp2;
-  s.rl1 = x.rl1;
-  s.rl2 = x.rl2;
-  s.rk = x.rk;
-  s.rt = x.rt;
-  s.rg1 = x.rg1;
-  s.rg2 = x.rg2;
-  s.rload1 = x.rload1;
-  s.rload2 = x.rload2;
-  s.rsource = x.rsource;
-  return reducedNodalGainsInto(s, ctx.gains);
 }
