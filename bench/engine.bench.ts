@@ -2,6 +2,7 @@
 // and heap use against N. Fixed seeds and sizes; speed is reported here, never asserted in tests.
 // Run: npm run bench (repo root). Add --expose-gc (the script does) for settled heap figures.
 import {
+  buildTestDesign,
   chunkCount,
   createRunAccumulator,
   createStream,
@@ -14,10 +15,10 @@ import {
 } from '@sigmatail/engine';
 import { createBaselineStage } from './src/baselineStage.js';
 import { createMnaBaselineStage } from './src/mnaBaselineStage.js';
-import { benchDesign } from './src/benchDesign.js';
+
 import { timeBest } from './src/timeBest.js';
 
-const design = benchDesign();
+const design = buildTestDesign();
 const N = DEFAULT_CHUNK_SIZE;
 const BASELINE_N = 2000;
 // BENCH_QUICK=1: fewer repetitions and no 1e7 heap row; BENCH_1E8=1 adds a 1e8 heap row (minutes).

@@ -39,3 +39,4 @@ export * from './run/mergeSetupChunks.js';
 export * from './run/setupSampleRows.js';
 export * from './run/designSetup.js';
 export * from './run/runApi.js';
+export { buildTestDesign } from './run/buildTestDesign.js';
