@@ -28,7 +28,9 @@ export interface E2eHarness {
  * SMTP fake, the API server serving the built web app on a free port, one run worker process and
  * Debian chromium. `stop()` tears it all down in reverse order.
  */
-export async function startE2e(dbName = 'sigmatail_e2e'): Promise<E2eHarness> {
+export async function startE2e(
+  dbName = process.env.SIGMATAIL_E2E_DB ?? 'sigmatail_e2e',
+): Promise<E2eHarness> {
   if (!existsSync(path.join(WEB_DIST, 'index.html'))) {
     throw new Error(
       'packages/web/dist is missing: run `npm run build -w @sigmatail/web` before the browser tests',
