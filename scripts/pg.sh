@@ -1,11 +1,10 @@
 #!/usr/bin/env bash
 # Project-local PostgreSQL 15 on 127.0.0.1:$PGPORT, data under .data/pg.
-# Usage: scripts/pg.sh start|stop|status|url|reset-db NAME
+# Usage: scripts/pg.sh start|stop|status|url|datadir|reset-db NAME
 # Idempotent. Runs the server as 'postgres' when invoked as root (initdb/pg_ctl refuse root).
 set -euo pipefail
 REPO=$(cd "$(dirname "$0")/.." && pwd)
 PGBIN=${PGBIN:-/usr/lib/postgresql/15/bin}
-PGDATA=${SIGMATAIL_PGDATA:-$REPO/.data/pg}
 PGPORT=${SIGMATAIL_PGPORT:-55432}
 PGHOST_ADDR=127.0.0.1
 PGSOCK=${SIGMATAIL_PGSOCK:-/tmp}
@@ -30,6 +29,26 @@ if [ "$(id -u)" = 0 ]; then
 else
   AS=()
 fi
+# The data directory. SIGMATAIL_PGDATA wins; else .data/pg in the checkout, where it already exists
+# or where the database user can reach it. As root the server runs as 'postgres', which cannot
+# enter a checkout under a mode-700 directory (/root, mktemp -d): then the data lives in a
+# directory that user owns, one per checkout (named after the checkout's path), and we say so.
+pick_pgdata() {
+  local local_dir="$REPO/.data/pg"
+  if [ -n "${SIGMATAIL_PGDATA:-}" ]; then echo "$SIGMATAIL_PGDATA"; return; fi
+  if [ -s "$local_dir/PG_VERSION" ] || [ "$(id -u)" != 0 ] || "${AS[@]}" test -x "$REPO"; then
+    echo "$local_dir"; return
+  fi
+  local tag
+  tag="$(basename "$REPO" | tr -c 'A-Za-z0-9_.\n-' _)-$(printf %s "$REPO" | sha256sum | cut -c1-10)"
+  echo "${SIGMATAIL_PGROOT:-/var/lib/postgresql/sigmatail}/$tag/pg"
+}
+PGDATA=$(pick_pgdata)
+if [ "$PGDATA" != "$REPO/.data/pg" ] && [ -z "${SIGMATAIL_PGDATA:-}" ] && [ "${1:-start}" = start ] \
+  && [ ! -s "$PGDATA/PG_VERSION" ]; then
+  echo "pg.sh: the database user 'postgres' cannot enter $REPO; keeping this checkout's data in $PGDATA" >&2
+fi
+
 ready() { "$PGBIN/pg_isready" -q -h "$PGHOST_ADDR" -p "$PGPORT"; }
 psql_() { PGOPTIONS="-c client_min_messages=warning" "$PGBIN/psql" -h "$PGHOST_ADDR" -p "$PGPORT" -U postgres -v ON_ERROR_STOP=1 -qtA "$@"; }
 
@@ -67,5 +86,6 @@ case "${1:-start}" in
     echo "PostgreSQL stopped" ;;
   status) if ready; then echo "running on $PGHOST_ADDR:$PGPORT"; else echo "not running"; exit 3; fi ;;
   url) echo "postgres://postgres@$PGHOST_ADDR:$PGPORT/$DB" ;;
-  *) echo "usage: $0 start|stop|status|url|reset-db NAME" >&2; exit 2 ;;
+  datadir) echo "$PGDATA" ;;
+  *) echo "usage: $0 start|stop|status|url|datadir|reset-db NAME" >&2; exit 2 ;;
 esac

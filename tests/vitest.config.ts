@@ -5,7 +5,7 @@ export default defineConfig({
   resolve: { conditions: ['@sigmatail/source', ...defaultServerConditions] },
   ssr: { resolve: { conditions: ['@sigmatail/source', ...defaultServerConditions] } },
   test: {
-    include: ['src/**/*.test.ts', 'e2e/**/*.test.ts'],
+    include: ['src/**/*.test.ts', 'setup/**/*.test.ts', 'e2e/**/*.test.ts'],
     testTimeout: 60_000,
     hookTimeout: 120_000,
     // Browser journeys share one server and database; run them one file at a time.
