@@ -9,7 +9,12 @@ import type { Database } from './schema.js';
  */
 export function createDb(url: string, options: { max?: number } = {}): Kysely<Database> {
   const pool = new pg.Pool({ connectionString: url, max: options.max ?? 10 });
-  // An idle client that loses its server (restart) must not crash the process.
+  // A client that loses its server (restart, outage) must not crash the process: idle clients
+  // report through the pool, clients checked out (e.g. inside a transaction) through their own
+  // listener; the query in flight fails and the pool connects afresh next time.
   pool.on('error', (err) => console.error('postgres pool error:', err.message));
+  pool.on('connect', (client) => {
+    client.on('error', (err) => console.error('postgres connection error:', err.message));
+  });
   return new Kysely<Database>({ dialect: new PostgresDialect({ pool }) });
 }
