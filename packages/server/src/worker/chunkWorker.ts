@@ -1,3 +1,4 @@
+import { isConnectionError } from '@sigmatail/db';
 import type { Piscina } from 'piscina';
 import { ChunkQueue, type ClaimedChunk } from '../runs/chunkQueue.js';
 import type { Db } from '../runs/runsDb.js';
@@ -137,6 +138,7 @@ export class ChunkWorker {
         };
         json = (await this.o.pool.run(task, { signal })) as string;
       } catch (err) {
+        if (isConnectionError(err)) throw err; // the database failed, not the chunk (below)
         if (!signal.aborted && !this.stopped) await this.chunkFailed(chunk, (err as Error).message);
         return;
       }
@@ -183,6 +185,9 @@ export class ChunkWorker {
     } catch (err) {
       if (this.stopped) return;
       this.log(`run ${runId} merge failed: ${(err as Error).message}`);
+      // A database outage is not the run's fault: leave the merge lease to expire, and this or
+      // another worker merges again once the database answers.
+      if (isConnectionError(err)) return;
       await this.store.fail(runId, `merge failed: ${(err as Error).message}`).catch(() => false);
     } finally {
       this.contexts.delete(runId);
