@@ -73,3 +73,16 @@ export const runView = z.object({
     .describe('from the stored results, once done'),
 });
 export type RunView = z.infer<typeof runView>;
+
+/** Most rows GET /api/runs/:id/samples returns (a scatter preview, not an export). */
+export const MAX_SAMPLE_PREVIEW = 10_000;
+
+/** GET /api/runs/:id/samples query. */
+export const samplesQuery = z.strictObject({
+  limit: z.coerce
+    .number({ message: `must be an integer 1..${MAX_SAMPLE_PREVIEW}` })
+    .int(`must be an integer 1..${MAX_SAMPLE_PREVIEW}`)
+    .min(1, `must be an integer 1..${MAX_SAMPLE_PREVIEW}`)
+    .max(MAX_SAMPLE_PREVIEW, `must be an integer 1..${MAX_SAMPLE_PREVIEW}`)
+    .default(2_000),
+});

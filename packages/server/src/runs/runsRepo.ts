@@ -2,7 +2,7 @@ import type { Database, RunStatus } from '@sigmatail/db';
 import { sql, type Kysely, type Transaction } from 'kysely';
 import type { RunView } from './runSchemas.js';
 
-type DbOrTrx = Kysely<Database> | Transaction<Database>;
+export type DbOrTrx = Kysely<Database> | Transaction<Database>;
 
 /** All run SQL used by the API (the worker's side lives in chunkQueue and runWorkStore). */
 

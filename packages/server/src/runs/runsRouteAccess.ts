@@ -7,6 +7,7 @@ export const runsRouteAccess: RouteAccessTable = {
   'GET /api/runs/:id': 'signedIn',
   'POST /api/runs/:id/cancel': ['admin', 'engineer', 'production'],
   'GET /api/runs/:id/results': 'signedIn',
+  'GET /api/runs/:id/samples': 'signedIn',
   'GET /api/runs/:id/export.csv': ['admin', 'engineer', 'production'],
   'GET /api/runs/:id/export.json': ['admin', 'engineer', 'production'],
   'GET /api/openapi.json': 'public',

@@ -149,6 +149,19 @@ describe('runs API', () => {
     const last = [...sampleRows(parsed.design, plan, 2).rows].at(-1)!;
     expect(lines[3_000]!.split(',').map((c) => (c === '' ? NaN : Number(c)))).toEqual(last);
 
+    // The scatter preview: the same rows as the export's head, for a viewer too, never audited.
+    const preview = await viewer.get(`/api/runs/${id}/samples?limit=1500`);
+    expect(preview.status).toBe(200);
+    expect(preview.body.columns).toEqual(first.columns);
+    expect(preview.body.rows).toHaveLength(1_500);
+    const asNumbers = (r: (number | null)[]) => r.map((x) => (x === null ? NaN : x));
+    expect(asNumbers(preview.body.rows[0])).toEqual(row0);
+    expect(asNumbers(preview.body.rows[1_499])).toEqual([...sampleRows(parsed.design, plan, 1).rows][499]);
+    const tooMany = await viewer.get(`/api/runs/${id}/samples?limit=10001`);
+    expect(tooMany.status).toBe(400);
+    expect(tooMany.body.error.field).toBe('limit');
+    expect((await viewer.get(`/api/runs/${id}/samples?rows=5`)).status).toBe(400);
+
     const audit = await app.deps.db
       .selectFrom('audit_events')
       .select(['action', 'detail'])
@@ -206,6 +219,7 @@ describe('runs API', () => {
     const mine = (await engineer.get('/api/runs')).body.runs as { id: string }[];
     expect(mine.length).toBeGreaterThan(0);
     expect((await other.get(`/api/runs/${mine[0]!.id}`)).status).toBe(404);
+    expect((await other.get(`/api/runs/${mine[0]!.id}/samples`)).status).toBe(404);
     expect((await other.get('/api/runs')).body.runs).toEqual([]);
     expect((await other.post('/api/runs', { ...SMALL, designId })).status).toBe(404);
   });

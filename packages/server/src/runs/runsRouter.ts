@@ -1,4 +1,3 @@
-import { ENGINE_VERSION, parseDesign, type RunPlan } from '@sigmatail/engine';
 import { Router, type Request } from 'express';
 import type { AppDeps } from '../appDeps.js';
 import { recordAudit } from '../audit/recordAudit.js';
@@ -8,16 +7,11 @@ import { uuidParam } from '../http/uuidParam.js';
 import { notifyRuns } from '../worker/runsChannel.js';
 import { launchRun } from './launchRun.js';
 import { buildOpenApi } from './openApi/buildOpenApi.js';
-import { launchRunBody, listRunsQuery, type RunView } from './runSchemas.js';
-import {
-  cancelRun,
-  findResultsText,
-  findRun,
-  findRunDesign,
-  findRunWithWorkspace,
-  listRuns,
-} from './runsRepo.js';
+import { runSampleSource } from './runSampleSource.js';
+import { launchRunBody, listRunsQuery, samplesQuery, type RunView } from './runSchemas.js';
+import { cancelRun, findResultsText, findRun, findRunWithWorkspace, listRuns } from './runsRepo.js';
 import { RunViewCache } from './runViewCache.js';
+import { sampleRowsHead } from './sampleRowsHead.js';
 import { streamSamplesCsv } from './streamSamplesCsv.js';
 
 const LAUNCHERS = ['engineer', 'production'] as const; // and admin, who passes every check
@@ -92,28 +86,12 @@ export function createRunsRouter({ db }: AppDeps): Router {
 
   router.get('/runs/:id/export.csv', requireRole(...LAUNCHERS), async (req, res) => {
     const run = await loadDone(req);
-    // Raw samples are regenerated, so only the engine that computed the run can reproduce them.
-    if (run.engineVersion !== ENGINE_VERSION) {
-      throw new HttpError(
-        409,
-        `run was computed by engine ${run.engineVersion}; this server has ${ENGINE_VERSION}`,
-      );
-    }
-    const parsed = parseDesign(await findRunDesign(db, run.id));
-    if (!parsed.ok)
-      throw new HttpError(422, 'the run’s design snapshot no longer parses; export is not possible');
-    const plan: RunPlan = {
-      samples: run.samples,
-      seed: run.seed,
-      plan: run.plan,
-      chunkSize: run.chunkSize,
-      analyses: run.analyses,
-    };
+    const { design, plan } = await runSampleSource(db, run);
     await audit(req, 'run.export', run.id, { format: 'csv', samples: run.samples });
     res.attachment(`sigmatail-run-${run.id}-samples.csv`);
     res.type('text/csv');
     try {
-      await streamSamplesCsv(res, parsed.design, plan);
+      await streamSamplesCsv(res, design, plan);
     } catch (err) {
       if (!res.headersSent) throw err;
       console.error(`export of run ${run.id} broke off: ${(err as Error).message}`);
@@ -121,6 +99,15 @@ export function createRunsRouter({ db }: AppDeps): Router {
       return;
     }
     res.end();
+  });
+
+  // A scatter preview: the first samples as JSON, for every role that may read the run; unlike
+  // the export it is bounded in size and is not an audited export.
+  router.get('/runs/:id/samples', requireAuth, async (req, res) => {
+    const { limit } = samplesQuery.parse(req.query);
+    const run = await loadDone(req);
+    const { design, plan } = await runSampleSource(db, run);
+    res.json(sampleRowsHead(design, plan, limit));
   });
 
   // The API description, built from the same route tables and zod schemas the app enforces, so it

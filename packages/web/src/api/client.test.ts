@@ -1,6 +1,6 @@
 // @vitest-environment node
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { api, ApiError, request, requestCsvHead } from './client.js';
+import { api, ApiError, request } from './client.js';
 
 function respond(status: number, body: unknown, contentType = 'application/json') {
   const text = typeof body === 'string' ? body : JSON.stringify(body);
@@ -78,37 +78,14 @@ describe('api client', () => {
   });
 });
 
-describe('requestCsvHead', () => {
-  it('reads only the leading rows of a streamed CSV and stops the download', async () => {
-    let cancelled = false;
-    const lines = [
-      'sample,rl1,balanceDb\n',
-      ...Array.from({ length: 500 }, (_, i) => `${i},${100000 + i},${i % 7 === 0 ? '' : -0.1}\n`),
-    ];
-    const body = new ReadableStream<Uint8Array>({
-      pull(controller) {
-        const next = lines.shift();
-        if (next === undefined) controller.close();
-        else controller.enqueue(new TextEncoder().encode(next));
-      },
-      cancel() {
-        cancelled = true;
-      },
-    });
-    vi.stubGlobal(
-      'fetch',
-      vi.fn(async () => new Response(body, { status: 200 })),
-    );
-    const head = await requestCsvHead('/runs/x/export.csv', 20);
+describe('api.runs.sampleHead', () => {
+  it('asks the bounded samples endpoint and turns null cells into NaN', async () => {
+    const fetchMock = respond(200, { columns: ['sample', 'rl1', 'balanceDb'], rows: [[0, 100000, null]] });
+    vi.stubGlobal('fetch', fetchMock);
+    const head = await api.runs.sampleHead('r 1', 20);
+    expect((fetchMock.mock.calls[0] as unknown as [string])[0]).toBe('/api/runs/r%201/samples?limit=20');
     expect(head.columns).toEqual(['sample', 'rl1', 'balanceDb']);
-    expect(head.rows).toHaveLength(20);
-    expect(head.rows[1]).toEqual([1, 100001, -0.1]);
-    expect(head.rows[0][2]).toBeNaN(); // empty cell
-    expect(cancelled).toBe(true);
-  });
-
-  it('reports a refused export with the server message', async () => {
-    vi.stubGlobal('fetch', respond(403, { error: { message: 'your role (viewer) may not do this' } }));
-    await expect(requestCsvHead('/runs/x/export.csv', 10)).rejects.toMatchObject({ status: 403 });
+    expect(head.rows[0]!.slice(0, 2)).toEqual([0, 100000]);
+    expect(head.rows[0]![2]).toBeNaN();
   });
 });

@@ -86,46 +86,10 @@ export async function request<T>(method: Method, path: string, body?: unknown): 
   return (text ? JSON.parse(text) : undefined) as T;
 }
 
-/** Parsed leading rows of a CSV download; the rest of the stream is abandoned. */
-export interface CsvSubset {
+/** The first raw samples of a run (a non-finite value comes back as NaN). */
+export interface SampleSubset {
   columns: string[];
   rows: number[][];
-}
-
-/**
- * Read the first `maxRows` data rows of a CSV endpoint and cancel the rest of the download, so a
- * 10⁶-sample export costs the browser only the rows it plots.
- */
-export async function requestCsvHead(path: string, maxRows: number): Promise<CsvSubset> {
-  let res: Response;
-  try {
-    res = await fetch(`/api${path}`, { credentials: 'same-origin' });
-  } catch {
-    throw new ApiError(0, 'Cannot reach the Sigmatail server. Check your connection and try again.');
-  }
-  if (!res.ok) throw await toApiError(res);
-  const lines: string[] = [];
-  let buffer = '';
-  if (res.body) {
-    const reader = res.body.pipeThrough(new TextDecoderStream()).getReader();
-    while (lines.length <= maxRows) {
-      const { done, value } = await reader.read();
-      if (done) break;
-      buffer += value;
-      const parts = buffer.split('\n');
-      buffer = parts.pop() ?? '';
-      lines.push(...parts);
-    }
-    await reader.cancel().catch(() => undefined);
-  } else {
-    lines.push(...(await res.text()).split('\n'));
-  }
-  if (buffer) lines.push(buffer);
-  const [header = '', ...data] = lines.filter((l) => l.trim() !== '');
-  return {
-    columns: header.split(',').map((c) => c.trim()),
-    rows: data.slice(0, maxRows).map((l) => l.split(',').map((v) => (v === '' ? Number.NaN : Number(v)))),
-  };
 }
 
 function qs(params: Record<string, string | number | boolean | undefined>): string {
@@ -182,7 +146,13 @@ export const api = {
     launch: (launch: RunLaunch) => request<{ id: string }>('POST', '/runs', launch),
     cancel: (id: string) => request<{ run: RunView }>('POST', `/runs/${enc(id)}/cancel`),
     results: (id: string) => request<RunResultsBody>('GET', `/runs/${enc(id)}/results`),
-    sampleHead: (id: string, maxRows: number) => requestCsvHead(`/runs/${enc(id)}/export.csv`, maxRows),
+    sampleHead: async (id: string, maxRows: number): Promise<SampleSubset> => {
+      const head = await request<{ columns: string[]; rows: (number | null)[][] }>(
+        'GET',
+        `/runs/${enc(id)}/samples${qs({ limit: maxRows })}`,
+      );
+      return { columns: head.columns, rows: head.rows.map((r) => r.map((x) => x ?? Number.NaN)) };
+    },
     csvUrl: (id: string) => `/api/runs/${enc(id)}/export.csv`,
     jsonUrl: (id: string) => `/api/runs/${enc(id)}/export.json`,
   },

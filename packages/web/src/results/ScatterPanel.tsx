@@ -2,29 +2,19 @@ import type { RunResults } from '@sigmatail/engine';
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { runQueries } from '../api/queries/runQueries.js';
-import { can } from '../auth/permissions.js';
-import { useMe } from '../auth/useMe.js';
 import { ChartFrame } from '../charts/ChartFrame.js';
 import { Scatter } from '../charts/Scatter.js';
 import { ErrorNote, Loading } from '../components/QueryState.js';
 import { INPUT_LABELS, metricInfo } from './metricInfo.js';
 
-/** Rows read from the CSV export for the scatter (the first samples of the run, regenerated from its seed). */
+/** Rows the scatter plots (the first samples of the run, regenerated from its seed). */
 export const SCATTER_ROWS = 2000;
 
-/** Any metric against any part, from the first samples of the run's CSV export. */
+/** Any metric against any part, from the first samples of the run. */
 export function ScatterPanel({ results, runId }: { results: RunResults; runId: string }) {
-  const me = useMe();
-  const allowed = can(me.role, 'export');
-  const samples = useQuery({ ...runQueries.samples(runId, SCATTER_ROWS), enabled: allowed });
+  const samples = useQuery(runQueries.samples(runId, SCATTER_ROWS));
   const [metric, setMetric] = useState(results.specs[0]?.metric ?? 'balanceDb');
   const [part, setPart] = useState('rl2');
-  if (!allowed)
-    return (
-      <p className="text-sm text-dim">
-        The scatter reads raw samples through the export, which your role ({me.role}) cannot use.
-      </p>
-    );
   if (samples.isPending) return <Loading label="Reading samples…" />;
   if (samples.isError) return <ErrorNote error={samples.error} onRetry={() => samples.refetch()} />;
   const { columns, rows } = samples.data;
@@ -39,7 +29,7 @@ export function ScatterPanel({ results, runId }: { results: RunResults; runId: s
     <ChartFrame
       title={`${info.label} against ${INPUT_LABELS[part] ?? part}`}
       fileName={`run-${runId.slice(0, 8)}-scatter-${metric}-${part}`}
-      note={`First ${rows.length.toLocaleString('en-US')} samples of the run (regenerated from its seed through the CSV export).`}
+      note={`First ${rows.length.toLocaleString('en-US')} samples of the run (regenerated from its seed).`}
     >
       {(ref) => (
         <>

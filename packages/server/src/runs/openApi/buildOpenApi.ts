@@ -3,7 +3,7 @@ import path from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { z } from 'zod';
 import type { RouteAccess, RouteAccessTable } from '../../http/routeAccess.js';
-import { launchRunBody, listRunsQuery, runView } from '../runSchemas.js';
+import { launchRunBody, listRunsQuery, runView, samplesQuery } from '../runSchemas.js';
 
 const SRC = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 
@@ -56,6 +56,7 @@ const summaries: Record<string, string> = {
   'GET /api/runs/:id/export.csv':
     'Raw samples (inputs and metrics) regenerated from the seed, streamed as CSV',
   'GET /api/runs/:id/export.json': 'The run and its results as a download',
+  'GET /api/runs/:id/samples': 'The first raw samples as JSON (a scatter preview; not an audited export)',
   'GET /api/openapi.json': 'This document',
 };
 
@@ -120,6 +121,26 @@ const runsDetails: Record<string, object> = {
     responses: {
       200: ok({ type: 'object' }, 'Attachment: the run and its results'),
       409: errorResponse('The run is not done'),
+    },
+  },
+  'GET /api/runs/:id/samples': {
+    parameters: Object.entries((json(samplesQuery) as { properties: Record<string, object> }).properties).map(
+      ([name, schema]) => ({ name, in: 'query', required: false, schema }),
+    ),
+    responses: {
+      200: ok({
+        type: 'object',
+        properties: {
+          columns: { type: 'array', items: { type: 'string' } },
+          rows: {
+            type: 'array',
+            items: { type: 'array', items: { type: ['number', 'null'] } },
+            description: 'one row per sample in column order; null where a value is not finite',
+          },
+        },
+        required: ['columns', 'rows'],
+      }),
+      409: errorResponse('The run is not done, or was computed by another engine version'),
     },
   },
   'GET /api/runs/:id/export.csv': {

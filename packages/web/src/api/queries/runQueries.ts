@@ -22,7 +22,7 @@ export const runQueries = {
       queryFn: () => api.runs.results(id),
       staleTime: Infinity, // results of a finished run are immutable
     }),
-  /** The first rows of the regenerated sample export, for scatter plots. */
+  /** The first raw samples of a run (regenerated from its seed), for scatter plots. */
   samples: (id: string, maxRows: number) =>
     queryOptions({
       queryKey: [...runQueries.all, 'detail', id, 'samples', maxRows] as const,
