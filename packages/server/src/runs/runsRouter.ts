@@ -10,6 +10,7 @@ import { buildOpenApi } from './openApi/buildOpenApi.js';
 import { runSampleSource } from './runSampleSource.js';
 import { launchRunBody, listRunsQuery, samplesQuery, type RunView } from './runSchemas.js';
 import { cancelRun, findResultsText, findRun, findRunWithWorkspace, listRuns } from './runsRepo.js';
+import { createExportPool } from './exportPool.js';
 import { RunViewCache } from './runViewCache.js';
 import { sampleRowsHead } from './sampleRowsHead.js';
 import { streamSamplesCsv } from './streamSamplesCsv.js';
@@ -19,6 +20,7 @@ const LAUNCHERS = ['engineer', 'production'] as const; // and admin, who passes 
 /** Runs API: launch, status and progress, list, cancel, results, exports (mounted under /api). */
 export function createRunsRouter({ db }: AppDeps): Router {
   const router = Router();
+  const exports = createExportPool();
   const loadRun = async (req: Request): Promise<RunView> => {
     const run = await findRun(db, req.user!.workspaceId, uuidParam(req, 'id', 'run'));
     if (!run) throw new HttpError(404, 'run not found');
@@ -91,7 +93,7 @@ export function createRunsRouter({ db }: AppDeps): Router {
     res.attachment(`sigmatail-run-${run.id}-samples.csv`);
     res.type('text/csv');
     try {
-      await streamSamplesCsv(res, design, plan);
+      await streamSamplesCsv(res, design, plan, exports.slice);
     } catch (err) {
       if (!res.headersSent) throw err;
       console.error(`export of run ${run.id} broke off: ${(err as Error).message}`);

@@ -1,6 +1,7 @@
 import { Writable } from 'node:stream';
 import { parseDesign, type RunPlan } from '@sigmatail/engine';
-import { describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
+import { createExportPool } from './exportPool.js';
 import { streamSamplesCsv } from './streamSamplesCsv.js';
 import { exampleDesign } from './testing/exampleDesign.js';
 
@@ -8,6 +9,8 @@ const parsed = parseDesign(exampleDesign());
 if (!parsed.ok) throw new Error('example design does not parse');
 const design = parsed.design;
 const plan: RunPlan = { samples: 20_000, seed: 'csv', plan: 'random', chunkSize: 5_000 };
+const pool = createExportPool();
+afterAll(() => pool.close());
 
 /** A slow consumer: takes each write on the next turn of the event loop, with a small buffer. */
 function slowSink(onWrite?: (bytes: number, sink: Writable) => void) {
@@ -35,7 +38,7 @@ function slowSink(onWrite?: (bytes: number, sink: Writable) => void) {
 describe('streamSamplesCsv', () => {
   it('streams every sample with backpressure: the buffer stays near one batch whatever N is', async () => {
     const { sink, stats } = slowSink();
-    await streamSamplesCsv(sink, design, plan);
+    await streamSamplesCsv(sink, design, plan, pool.slice);
     const { bytes, maxBuffered, text } = stats();
     const lines = text.trimEnd().split('\n');
     expect(lines).toHaveLength(20_001);
@@ -44,14 +47,14 @@ describe('streamSamplesCsv', () => {
       Array.from({ length: 20_000 }, (_, i) => i),
     );
     expect(bytes).toBeGreaterThan(3_000_000);
-    expect(maxBuffered).toBeLessThan(1_000_000); // a 500-row batch is ~0.4 MB; 20 000 rows are ~7 MB
+    expect(maxBuffered).toBeLessThan(3_000_000); // a 2 000-row slice is ~0.8 MB; 20 000 rows are ~7 MB
   });
 
   it('stops generating when the client goes away', async () => {
     const { sink, stats } = slowSink((bytes, s) => {
       if (bytes > 200_000) s.destroy();
     });
-    await streamSamplesCsv(sink, design, { ...plan, samples: 1_000_000 });
+    await streamSamplesCsv(sink, design, { ...plan, samples: 1_000_000 }, pool.slice);
     expect(stats().bytes).toBeLessThan(2_000_000);
   });
 });

@@ -11,13 +11,13 @@ export function defaultThreads(): number {
 }
 
 /** A piscina pool of chunk threads. Threads get the tsx loader only when running from source. */
-export function createChunkPool(opts: { threads: number; taskUrl?: URL }): Piscina {
+export function createChunkPool(opts: { threads: number; minThreads?: number; taskUrl?: URL }): Piscina {
   const taskUrl = opts.taskUrl ?? chunkTaskUrl;
   const fromSource = taskUrl.pathname.endsWith('.ts');
   const hasTsx = process.execArgv.some((a) => a.includes('tsx'));
   return new Piscina({
     filename: taskUrl.href,
-    minThreads: opts.threads,
+    minThreads: opts.minThreads ?? opts.threads,
     maxThreads: opts.threads,
     // A queued task must not wait behind a thread's own backlog: one task per thread at a time.
     concurrentTasksPerWorker: 1,
