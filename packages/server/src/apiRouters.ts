@@ -7,6 +7,7 @@ import { createWorkspaceSwitchRouter } from './auth/workspaceSwitchRouter.js';
 import { createDesignsRouter } from './designs/designsRouter.js';
 import { createDevInboxRouter } from './devInbox/devInboxRouter.js';
 import { createHealthRouter } from './http/healthRouter.js';
+import { createReportsRouter } from './reports/reportsRouter.js';
 import { createRunsRouter } from './runs/runsRouter.js';
 import { createAcceptInviteRouter } from './users/acceptInviteRouter.js';
 import { createInvitesRouter } from './users/invitesRouter.js';
@@ -31,5 +32,6 @@ export function apiRouters(deps: AppDeps): Router[] {
     createAuditRouter(deps),
     createDesignsRouter(deps),
     createRunsRouter(deps),
+    createReportsRouter(deps),
   ];
 }

@@ -7,7 +7,7 @@ import { runSetupChunk } from '../run/runSetupChunk.js';
 import { mergeSetupChunks } from '../run/mergeSetupChunks.js';
 import { chunkCount, type RunPlan } from '../run/runPlan.js';
 import { additiveKernel } from '../run/testKernels.js';
-import { capability } from './capability.js';
+import { capability, cpkInterval } from './capability.js';
 
 describe('capability and reject rate', () => {
   it('Cp/Cpk formulas', () => {
@@ -33,5 +33,21 @@ describe('capability and reject rate', () => {
     expect(spec.cp).toBeCloseTo(1, 2);
     expect(spec.clopperPearson[0]).toBeLessThan(spec.yield);
     expect(spec.wilson[1]).toBeGreaterThan(spec.yield);
+  });
+});
+
+describe('cpkInterval', () => {
+  it('matches a hand computation of the normal approximation', () => {
+    // Bissell (1990), Applied Statistics 39: Cpk ± z·√(1/(9n) + Cpk²/(2(n−1))) — formula from memory;
+    // values hand-computed in Python: Cpk 1.33, n 100 → [1.13356, 1.52644].
+    const [lo, hi] = cpkInterval(1.33, 100)!;
+    expect(lo).toBeCloseTo(1.133563598483375, 10);
+    expect(hi).toBeCloseTo(1.5264364015166252, 10);
+  });
+  it('narrows with n and refuses undefined input', () => {
+    const [lo, hi] = cpkInterval(1, 10000)!;
+    expect(hi - lo).toBeCloseTo(0.0306446, 6);
+    expect(cpkInterval(null, 100)).toBeNull();
+    expect(cpkInterval(1, 1)).toBeNull();
   });
 });

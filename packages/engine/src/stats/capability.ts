@@ -20,3 +20,18 @@ export function capability(
   if (min !== undefined) cpk = Math.min(cpk, (mean - min) / (3 * sd));
   return { cp, cpk: Number.isFinite(cpk) ? cpk : null };
 }
+
+/** Two-sided 95 % standard-normal quantile. */
+const Z95 = 1.959963984540054;
+
+/**
+ * Approximate two-sided confidence interval for Cpk from n samples (Bissell's normal
+ * approximation): Cpk ± z·√(1/(9n) + Cpk²/(2(n − 1))). Null when Cpk or n does not allow one.
+ *
+ * @example cpkInterval(1.33, 100) // [1.1336, 1.5264]
+ */
+export function cpkInterval(cpk: number | null, n: number, z = Z95): [number, number] | null {
+  if (cpk === null || !Number.isFinite(cpk) || !(n > 1)) return null;
+  const half = z * Math.sqrt(1 / (9 * n) + (cpk * cpk) / (2 * (n - 1)));
+  return [cpk - half, cpk + half];
+}

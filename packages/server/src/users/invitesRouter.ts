@@ -7,6 +7,7 @@ import { requireRole } from '../auth/requireRole.js';
 import { emailField, roleField } from '../http/fields.js';
 import { HttpError } from '../http/httpError.js';
 import { uuidParam } from '../http/uuidParam.js';
+import { escapeHtml } from '../mail/escapeHtml.js';
 
 // Seven days: common practice, no source.
 const INVITE_TTL_MS = 7 * 24 * 3600 * 1000;
@@ -89,8 +90,4 @@ export function createInvitesRouter({ db, mailer, config }: AppDeps): Router {
   });
 
   return router;
-}
-
-function escapeHtml(s: string): string {
-  return s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 }

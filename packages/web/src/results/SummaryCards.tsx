@@ -1,6 +1,5 @@
-import type { RunResults } from '@sigmatail/engine';
+import { cpkInterval, type RunResults } from '@sigmatail/engine';
 import { formatPpm, formatSi, formatSig, formatYield } from '../format/formatSi.js';
-import { cpkInterval } from '../stats/cpkInterval.js';
 import { metricInfo } from './metricInfo.js';
 
 type YieldLike = RunResults['joint'];

@@ -1,6 +1,5 @@
 // @vitest-environment node
 import { describe, expect, it } from 'vitest';
-import { cpkInterval } from './cpkInterval.js';
 import { wilsonInterval } from './wilsonInterval.js';
 
 describe('wilsonInterval', () => {
@@ -21,21 +20,5 @@ describe('wilsonInterval', () => {
     expect(lo).toBeCloseTo(0.9981600556125619, 10);
     expect(hi).toBeCloseTo(0.9994567140135028, 10);
     expect(wilsonInterval(5, 0)[0]).toBeNaN();
-  });
-});
-
-describe('cpkInterval', () => {
-  it('matches a hand computation of the normal approximation', () => {
-    // Bissell (1990), Applied Statistics 39: Cpk ± z·√(1/(9n) + Cpk²/(2(n−1))) — formula from memory;
-    // values hand-computed in Python: Cpk 1.33, n 100 → [1.13356, 1.52644].
-    const [lo, hi] = cpkInterval(1.33, 100)!;
-    expect(lo).toBeCloseTo(1.133563598483375, 10);
-    expect(hi).toBeCloseTo(1.5264364015166252, 10);
-  });
-  it('narrows with n and refuses undefined input', () => {
-    const [lo, hi] = cpkInterval(1, 10000)!;
-    expect(hi - lo).toBeCloseTo(0.0306446, 6);
-    expect(cpkInterval(null, 100)).toBeNull();
-    expect(cpkInterval(1, 1)).toBeNull();
   });
 });

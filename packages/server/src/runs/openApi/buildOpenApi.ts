@@ -58,6 +58,8 @@ const summaries: Record<string, string> = {
   'GET /api/runs/:id/export.json': 'The run and its results as a download',
   'GET /api/runs/:id/samples': 'The first raw samples as JSON (a scatter preview; not an audited export)',
   'GET /api/openapi.json': 'This document',
+  'GET /api/reports/:designId': 'The production report of a design (latest finished run, ratings)',
+  'POST /api/reports/:designId/email': 'Mail the production report to a colleague',
 };
 
 const json = (schema: z.ZodType) => z.toJSONSchema(schema, { io: 'input', unrepresentable: 'any' });

@@ -1,0 +1,73 @@
+import { escapeHtml } from '../mail/escapeHtml.js';
+import type { ProductionReport } from './productionReport.js';
+
+export const CAUTION =
+  'High voltage: these circuits carry lethal voltages even when switched off. Discharge filter capacitors before ' +
+  'touching anything and respect every part and tube rating. Sigmatail is a design aid; its results do not ' +
+  'replace local electrical codes or licensed practice.';
+
+const pct = (x: number) => `${(x * 100).toFixed(3)} %`;
+const ppm = (x: number) => `${Math.round(x).toLocaleString('en-US')} PPM`;
+const num = (x: number | null) => (x === null ? '—' : Number(x.toPrecision(4)).toString());
+const range = (r: [number, number] | null, f: (x: number) => string) => (r ? `${f(r[0])} – ${f(r[1])}` : '—');
+
+/** Lines of the report as label/value rows, shared by the text and HTML bodies. */
+function rows(r: ProductionReport): [string, string][] {
+  const out: [string, string][] = [
+    ['Workspace', r.workspace.name],
+    ['Design', `${r.design.name} (revision ${r.design.revision}, ${r.design.topology}, ${r.design.tube})`],
+  ];
+  if (!r.run) return [...out, ['Run', 'no finished run yet']];
+  const j = r.run.joint;
+  out.push(
+    [
+      'Run',
+      `${r.run.samples.toLocaleString('en-US')} samples, ${r.run.plan}, seed ${r.run.seed}, revision ${r.run.revision}`,
+    ],
+    ['Joint yield', `${pct(j.yield)} (95 % Wilson ${range(j.wilson, pct)})`],
+    ['Reject rate', ppm(j.ppm)],
+  );
+  for (const s of r.run.specs) {
+    const limits = `${s.min === null ? '' : `≥ ${num(s.min)}`}${s.min !== null && s.max !== null ? ', ' : ''}${s.max === null ? '' : `≤ ${num(s.max)}`}`;
+    out.push([
+      `Spec ${s.label ?? s.metric} (${limits})`,
+      `yield ${pct(s.yield)}, ${ppm(s.ppm)}, Cpk ${num(s.cpk)} (95 % ${range(s.cpkInterval, num)})`,
+    ]);
+  }
+  return out;
+}
+
+/** The mail that carries a production report: a summary in text and HTML, with a link to the printable page. */
+export function renderReportMail(
+  r: ProductionReport,
+  o: { link: string; senderName: string; note?: string },
+): { subject: string; text: string; html: string } {
+  const lines = rows(r);
+  const warnings = r.warnings.map((w) => `Rating exceeded: ${w.message}`);
+  const text = [
+    `${o.senderName} sent you the Sigmatail production report of ${r.design.name}.`,
+    ...(o.note ? ['', o.note] : []),
+    '',
+    ...lines.map(([k, v]) => `${k}: ${v}`),
+    ...(warnings.length ? ['', ...warnings] : []),
+    '',
+    `Printable report: ${o.link}`,
+    '',
+    CAUTION,
+  ].join('\n');
+  const html = [
+    `<p>${escapeHtml(o.senderName)} sent you the Sigmatail production report of <b>${escapeHtml(r.design.name)}</b>.</p>`,
+    o.note ? `<p>${escapeHtml(o.note)}</p>` : '',
+    '<table cellpadding="4" style="border-collapse:collapse">',
+    ...lines.map(([k, v]) => `<tr><th align="left">${escapeHtml(k)}</th><td>${escapeHtml(v)}</td></tr>`),
+    '</table>',
+    ...warnings.map((w) => `<p><b>${escapeHtml(w)}</b></p>`),
+    `<p><a href="${escapeHtml(o.link)}">Open the printable report</a></p>`,
+    `<p><i>${escapeHtml(CAUTION)}</i></p>`,
+  ].join('\n');
+  return {
+    subject: `Sigmatail production report: ${r.design.name} (revision ${r.design.revision})`,
+    text,
+    html,
+  };
+}
