@@ -3,6 +3,7 @@ import type { ComponentType } from 'react';
 import { createBrowserRouter, redirect, type LoaderFunctionArgs } from 'react-router';
 import { authQueries } from './api/queries/authQueries.js';
 import { designQueries } from './api/queries/designQueries.js';
+import { reportQueries } from './api/queries/reportQueries.js';
 import { runQueries } from './api/queries/runQueries.js';
 import { adminQueries } from './api/queries/adminQueries.js';
 import { AppLayout } from './components/AppLayout.js';
@@ -22,6 +23,7 @@ const DesignEditor = page(() => import('./pages/DesignEditorPage.js'), 'DesignEd
 const Revision = page(() => import('./pages/RevisionPage.js'), 'RevisionPage');
 const Run = page(() => import('./pages/RunPage.js'), 'RunPage');
 const Report = page(() => import('./pages/ReportPage.js'), 'ReportPage');
+const ProductionReport = page(() => import('./pages/ProductionReportPage.js'), 'ProductionReportPage');
 const Compare = page(() => import('./pages/ComparePage.js'), 'ComparePage');
 const Admin = page(() => import('./pages/AdminPage.js'), 'AdminPage');
 
@@ -89,6 +91,14 @@ export function createAppRouter(qc: QueryClient) {
           path: 'runs/:id/report',
           lazy: Report,
           loader: async ({ params }) => (await warm(qc.ensureQueryData(runQueries.detail(params.id!))), null),
+        },
+        {
+          path: 'production/report/:designId',
+          lazy: ProductionReport,
+          loader: async ({ params }) => (
+            await warm(qc.ensureQueryData(reportQueries.detail(params.designId!))),
+            null
+          ),
         },
         { path: 'compare', lazy: Compare },
         {

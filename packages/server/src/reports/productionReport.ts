@@ -79,7 +79,7 @@ function reportRun(row: NonNullable<Awaited<ReturnType<typeof latestDoneRun>>>):
       ppm: s.ppm,
       cp: s.cp,
       cpk: s.cpk,
-      cpkInterval: cpkInterval(s.cpk, results.metrics[s.metric]?.count ?? s.samples),
+      cpkInterval: cpkInterval(s.cpk, s.samples),
     })),
   };
 }

@@ -12,6 +12,7 @@ import type {
   InviteInfo,
   Me,
   PendingInvite,
+  ProductionReport,
   Revision,
   RevisionSummary,
   Role,
@@ -138,6 +139,11 @@ export const api = {
       request<{ revision: Revision }>('POST', `/designs/${enc(id)}/revisions`, { document, message }),
     archive: (id: string, archived = true) =>
       request<{ design: DesignDetail }>('POST', `/designs/${enc(id)}/archive`, { archived }),
+  },
+  reports: {
+    get: (designId: string) => request<{ report: ProductionReport }>('GET', `/reports/${enc(designId)}`),
+    email: (designId: string, to: string, note?: string) =>
+      request<{ sent: boolean; to: string }>('POST', `/reports/${enc(designId)}/email`, { to, note }),
   },
   runs: {
     list: (filter: { designId?: string; status?: string } = {}) =>

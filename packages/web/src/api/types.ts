@@ -134,3 +134,35 @@ export interface RunResultsBody {
   run: RunView;
   results: RunResults;
 }
+
+/** One spec's line in a production report (GET /api/reports/:designId). */
+export interface ReportSpec {
+  metric: string;
+  label: string | null;
+  min: number | null;
+  max: number | null;
+  yield: number;
+  wilson: [number, number];
+  ppm: number;
+  cp: number | null;
+  cpk: number | null;
+  cpkInterval: [number, number] | null;
+}
+
+/** The production report of a design, gathered by the server. */
+export interface ProductionReport {
+  workspace: { name: string };
+  design: { id: string; name: string; revision: number; topology: string; tube: string };
+  warnings: { code: string; message: string }[];
+  run: {
+    id: string;
+    revision: number;
+    samples: number;
+    seed: string;
+    plan: string;
+    finishedAt: string | null;
+    joint: { yield: number; wilson: [number, number]; clopperPearson: [number, number]; ppm: number };
+    specs: ReportSpec[];
+  } | null;
+  generatedAt: string;
+}

@@ -70,6 +70,8 @@ describe('yield and reject rate', () => {
     expect(formatYield(0.95)).toBe('95.0 %');
     expect(formatYield(0.99987)).toBe('99.987 %');
     expect(formatYield(1)).toBe('100 %');
+    expect(formatYield(1 - 1e-12)).toBe('100 %'); // an interval's upper bound a rounding error below 1
+    expect(formatYield(0.9999996)).toBe('99.999960 %');
   });
   it('groups PPM and counts', () => {
     expect(formatPpm(1234.4)).toBe('1,234 PPM');

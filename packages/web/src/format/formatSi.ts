@@ -75,7 +75,9 @@ export function formatYield(fraction: number): string {
   if (fraction >= 1) return '100 %';
   const reject = 1 - fraction;
   const decimals = Math.min(6, Math.max(1, Math.ceil(-Math.log10(reject)) - 1));
-  return formatPercent(fraction, decimals);
+  const text = formatPercent(fraction, decimals);
+  // A share within 0.5 PPM of 1 (e.g. an interval's upper bound) rounds to 100 %: say so plainly.
+  return text.startsWith('100.') ? '100 %' : text;
 }
 
 /** Reject rate in parts per million, grouped by thousands: 1234.4 → "1,234 PPM". */

@@ -1,6 +1,6 @@
 import type { Design } from '@sigmatail/engine';
 import { useQuery, useQueryClient } from '@tanstack/react-query';
-import { useNavigate, useParams } from 'react-router';
+import { Link, useNavigate, useParams } from 'react-router';
 import { api } from '../api/client.js';
 import { designQueries } from '../api/queries/designQueries.js';
 import { can } from '../auth/permissions.js';
@@ -60,7 +60,15 @@ export function DesignEditorPage() {
         >
           {d.name}
         </PageTitle>
-        {mayEdit && <ArchiveButton designId={d.id} archived={d.archivedAt !== null} />}
+        <div className="flex gap-2">
+          <Link
+            className="rounded-md border border-rule bg-white px-3 py-1.5 text-sm text-petrol hover:bg-petrol-soft"
+            to={`/production/report/${d.id}`}
+          >
+            Production report
+          </Link>
+          {mayEdit && <ArchiveButton designId={d.id} archived={d.archivedAt !== null} />}
+        </div>
       </div>
       <SafetyCaution compact />
       <DesignForm

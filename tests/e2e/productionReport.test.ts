@@ -1,0 +1,59 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startE2e, type E2eHarness } from '../src/e2eHarness.js';
+import { screenshot } from '../src/screenshot.js';
+import { signIn } from '../src/signIn.js';
+
+let h: E2eHarness;
+beforeAll(async () => {
+  h = await startE2e();
+}, 60_000);
+afterAll(async () => {
+  await h?.stop();
+});
+
+describe('production lead reports on a design', () => {
+  it('runs a demo design, opens its production report, mails it, and the mail reaches the dev inbox', async () => {
+    const page = await signIn(h.browser, h.baseUrl, 'production@fenwick.example');
+    await page.getByRole('link', { name: /FL-50 driver/ }).click();
+    await page.getByRole('button', { name: 'Launch run' }).waitFor();
+    await page.getByLabel('Samples N').fill('4000');
+    await page.getByLabel('Seed (blank = new)').fill('report-journey');
+    await page.getByRole('button', { name: 'Launch run' }).click();
+    await page.waitForURL(/\/runs\/[0-9a-f-]{36}$/);
+    await page.getByTestId('joint-yield').waitFor({ timeout: 60_000 });
+    const runYield = await page.getByTestId('joint-yield').textContent();
+
+    await page.goBack();
+    await page.getByRole('link', { name: 'Production report' }).click();
+    await page.waitForURL(/\/production\/report\/[0-9a-f-]{36}$/);
+    const joint = page.getByTestId('report-joint-yield');
+    await joint.waitFor();
+    expect(await joint.textContent()).toContain(runYield!);
+    await expect(page.getByRole('note', { name: 'Safety caution' }).count()).resolves.toBe(2);
+    await page.emulateMedia({ media: 'print' });
+    await screenshot(page, '20-production-report-print');
+    await page.emulateMedia({ media: 'screen' });
+
+    await page.getByLabel("Colleague's e-mail").fill('bench.tech@fenwick.example');
+    await page.getByLabel('Note (optional)').fill('Numbers for Thursday’s build review.');
+    await page.getByRole('button', { name: 'Send report' }).click();
+    await page.getByText('Report sent to bench.tech@fenwick.example').waitFor();
+    await screenshot(page, '21-production-report-sent');
+    await page.context().close();
+
+    const admin = await signIn(h.browser, h.baseUrl, 'admin@fenwick.example');
+    await admin.getByRole('link', { name: 'Admin' }).click();
+    await admin.getByRole('tab', { name: 'Dev inbox' }).click();
+    const mail = admin.getByRole('button', { name: /to bench\.tech@fenwick\.example/ });
+    await mail.waitFor();
+    await mail.click();
+    const body = admin.getByRole('article', { name: 'Message body' });
+    await body.waitFor();
+    const text = (await body.textContent()) ?? '';
+    expect(text).toContain('Joint yield');
+    expect(text).toMatch(/\/production\/report\/[0-9a-f-]{36}/);
+    expect(text).toContain('High voltage');
+    await screenshot(admin, '22-production-report-mail');
+    await admin.context().close();
+  });
+});
