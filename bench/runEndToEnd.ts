@@ -15,10 +15,10 @@ export type Proc = {
 };
 
 /** Starts a TypeScript entry of the repo as its own process (node + tsx loader). */
-export function startProcess(entry: string, env: Record<string, string>): Proc {
+export function startProcess(entry: string, env: Record<string, string>, nodeArgs: string[] = []): Proc {
   const child = spawn(
     process.execPath,
-    ['--conditions=@sigmatail/source', '--import', 'tsx', path.join(REPO, entry)],
+    [...nodeArgs, '--conditions=@sigmatail/source', '--import', 'tsx', path.join(REPO, entry)],
     {
       cwd: REPO,
       env: { ...process.env, ...env },
@@ -94,13 +94,20 @@ export async function startStack(name: string) {
 
 /** A worker process; `nice` 0 for throughput figures, the default 10 when the API shares the machine. */
 export function startWorker(url: string, threads: number, nice = 10): Proc {
-  return startProcess('packages/server/src/worker/main.ts', {
-    DATABASE_URL: url,
-    SIGMATAIL_WORKER_THREADS: String(threads),
-    SIGMATAIL_WORKER_NICE: String(nice),
-    SIGMATAIL_POLL_MS: '1000',
-    SMTP_PORT: '9',
-  });
+  return startProcess(
+    'packages/server/src/worker/main.ts',
+    {
+      DATABASE_URL: url,
+      SIGMATAIL_WORKER_THREADS: String(threads),
+      SIGMATAIL_WORKER_NICE: String(nice),
+      SIGMATAIL_POLL_MS: '1000',
+      SMTP_PORT: '9',
+    },
+    // BENCH_WORKER_PROFILE=DIR writes a CPU profile of the worker's main thread there when it stops.
+    process.env.BENCH_WORKER_PROFILE
+      ? ['--cpu-prof', `--cpu-prof-dir=${process.env.BENCH_WORKER_PROFILE}`]
+      : [],
+  );
 }
 
 type Stack = Awaited<ReturnType<typeof startStack>>;
