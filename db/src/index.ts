@@ -1,5 +1,6 @@
 // Public surface of the database package: connection, migrations, demo seed and table types.
 export { createDb } from './createDb.js';
+export { listenForNotifications } from './notificationListener.js';
 export { ensureDatabase } from './ensureDatabase.js';
 export { migrateToLatest, migrateDown } from './migrateToLatest.js';
 export { DirMigrationProvider, MIGRATIONS_DIR } from './dirMigrationProvider.js';

@@ -10,7 +10,7 @@ import { loginRateLimit } from './loginRateLimit.js';
 import { presentMe } from './presentMe.js';
 import { requireAuth } from './requireRole.js';
 import { sessionCacheFor } from './sessionCache.js';
-import { clearSessionCookie, setSessionCookie } from './sessionCookie.js';
+import { clearSessionCookie, revokeSessions, setSessionCookie } from './sessionCookie.js';
 
 const loginBody = z.object({ email: emailField, password: z.string().min(1, 'is required').max(1000) });
 const logoutBody = z.object({ everywhere: z.boolean().optional() }).optional();
@@ -40,6 +40,7 @@ export function createAuthRouter(deps: AppDeps): Router {
       res,
       { userId: user.id, workspaceId: user.workspaceId, epoch: user.sessionEpoch },
       config,
+      db,
     );
     await recordAudit(db, {
       workspaceId: user.workspaceId,
@@ -56,13 +57,19 @@ export function createAuthRouter(deps: AppDeps): Router {
     const body = logoutBody.parse(req.body);
     if (req.user && body?.everywhere) {
       // Voids every token issued so far, on every device.
-      await db
-        .updateTable('users')
-        .set((eb) => ({ session_epoch: eb('session_epoch', '+', 1) }))
-        .where('id', '=', req.user.id)
-        .execute();
-      sessionCacheFor(db).forgetUser(req.user.id);
+      await db.transaction().execute(async (tx) => {
+        await tx
+          .updateTable('users')
+          .set((eb) => ({ session_epoch: eb('session_epoch', '+', 1) }))
+          .where('id', '=', req.user!.id)
+          .execute();
+        await revokeSessions(tx, { everyOf: req.user!.id });
+      });
+    } else if (req.user?.sessionId) {
+      await revokeSessions(db, { sessionId: req.user.sessionId });
     }
+    // The old cookie is refused from the next request on, by this and every other server process.
+    if (req.user) await sessionCacheFor(db).forgetUser(req.user.id);
     if (req.user) {
       await recordAudit(db, {
         workspaceId: req.user.workspaceId,

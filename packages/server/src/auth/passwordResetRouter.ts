@@ -8,6 +8,7 @@ import { HttpError } from '../http/httpError.js';
 import { findSessionUser } from './findSessionUser.js';
 import { forgotRateLimit } from './loginRateLimit.js';
 import { sessionCacheFor } from './sessionCache.js';
+import { revokeSessions } from './sessionCookie.js';
 import { hashToken, newMailToken } from './mailToken.js';
 
 // One hour: common practice, no source.
@@ -64,6 +65,7 @@ export function createPasswordResetRouter({ db, mailer, config }: AppDeps): Rout
         .set((eb) => ({ password_hash: passwordHash, session_epoch: eb('session_epoch', '+', 1) }))
         .where('id', '=', reset.user_id)
         .execute();
+      await revokeSessions(tx, { everyOf: reset.user_id });
       const member = await findSessionUser(tx, { userId: reset.user_id });
       await recordAudit(tx, {
         workspaceId: member?.workspaceId ?? null,
@@ -72,7 +74,7 @@ export function createPasswordResetRouter({ db, mailer, config }: AppDeps): Rout
       });
       return reset.user_id;
     });
-    sessionCacheFor(db).forgetUser(userId); // older sessions are refused from the next request on
+    await sessionCacheFor(db).forgetUser(userId); // older sessions are refused from the next request on
     res.json({ ok: true });
   });
 

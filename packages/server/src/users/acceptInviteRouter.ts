@@ -96,13 +96,14 @@ export function createAcceptInviteRouter({ db, config }: AppDeps): Router {
       return { id: user.id, workspaceId: invite.workspace_id };
     });
     // A rejoining member's older session for this workspace is valid again (same epoch).
-    sessionCacheFor(db).forgetUser(userId.id);
+    await sessionCacheFor(db).forgetUser(userId.id);
     const me = await findSessionUser(db, { userId: userId.id, workspaceId: userId.workspaceId });
     if (!me) throw new HttpError(409, 'the membership was removed meanwhile');
     await setSessionCookie(
       res,
       { userId: me.id, workspaceId: me.workspaceId, epoch: me.sessionEpoch },
       config,
+      db,
     );
     const { sessionEpoch: _e, passwordHash: _p, ...user } = me;
     res.json(presentMe(user));

@@ -66,7 +66,7 @@ export function createWorkspaceRouter({ db }: AppDeps): Router {
         detail: body,
       });
     });
-    if (body.name) sessionCacheFor(db).forgetAll(); // the name is part of every member's session
+    if (body.name) await sessionCacheFor(db).forgetAll(); // the name is part of every member's session
     res.json({ workspace: await load(user.workspaceId) });
   });
 
