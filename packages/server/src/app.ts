@@ -6,6 +6,8 @@ import type { AppDeps } from './appDeps.js';
 import { loadSession } from './auth/loadSession.js';
 import { apiRouters } from './apiRouters.js';
 import { apiNotFound, errorHandler } from './http/errorHandler.js';
+import { sameOriginGuard } from './http/sameOriginGuard.js';
+import { securityHeaders } from './http/securityHeaders.js';
 
 export type { AppDeps } from './appDeps.js';
 
@@ -16,10 +18,13 @@ export type { AppDeps } from './appDeps.js';
 export function createApp(deps: AppDeps): express.Express {
   const app = express();
   app.disable('x-powered-by');
-  // req.ip (the rate-limit key) is the socket address: X-Forwarded-For is not trusted, since any
-  // local client could forge it. A deployment behind a proxy sets 'trust proxy' for its hop.
+  // By default req.ip (the rate-limit key) is the socket address: X-Forwarded-For is not trusted,
+  // since any local client could forge it. A deployment behind a proxy sets SIGMATAIL_TRUST_PROXY.
+  app.set('trust proxy', deps.config.trustProxy);
+  app.use(securityHeaders(deps.config));
 
   const api = express.Router();
+  api.use(sameOriginGuard(deps.config));
   api.use(express.json({ limit: '2mb' }));
   api.use(cookieParser());
   api.use(loadSession(deps));

@@ -15,6 +15,17 @@ export interface AppConfig {
   loginWindowMs: number;
   /** Built web app to serve (with SPA fallback); null or missing folder = API only. */
   webDist: string | null;
+  /**
+   * Origins besides APP_URL's from which browsers may send state-changing requests
+   * (e.g. 'https://sigmatail.example.org'); everything else cross-site gets 403.
+   */
+  allowedOrigins: string[];
+  /**
+   * Express 'trust proxy': false (default: req.ip is the socket address, X-Forwarded-* ignored),
+   * true, a hop count or a list such as 'loopback'. Behind a TLS proxy it makes X-Forwarded-Proto
+   * count, so the session cookie gets its Secure flag.
+   */
+  trustProxy: boolean | number | string;
 }
 
 // Session length, sign-in limits: common practice, no source (a working day; 10 failures per 15 min).
@@ -26,4 +37,6 @@ export const DEFAULT_CONFIG: Omit<AppConfig, 'secret'> = {
   loginLimit: 10,
   loginWindowMs: 15 * 60 * 1000,
   webDist: null,
+  allowedOrigins: [],
+  trustProxy: false,
 };

@@ -35,7 +35,8 @@ export async function setSessionCookie(
   res.cookie(SESSION_COOKIE, token, {
     httpOnly: true,
     sameSite: 'lax',
-    secure: config.cookieSecure,
+    // Secure when APP_URL is https or this request came over TLS (X-Forwarded-Proto with trust proxy).
+    secure: config.cookieSecure || res.req.secure,
     path: '/',
     maxAge: config.sessionTtlSeconds * 1000,
   });
@@ -56,7 +57,7 @@ export function clearSessionCookie(res: Response, config: AppConfig): void {
   res.clearCookie(SESSION_COOKIE, {
     httpOnly: true,
     sameSite: 'lax',
-    secure: config.cookieSecure,
+    secure: config.cookieSecure || res.req.secure,
     path: '/',
   });
 }
