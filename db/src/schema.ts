@@ -73,6 +73,13 @@ export interface SessionsTable {
   revoked_at: NullableTimestamp;
 }
 
+/** A rate-limit counter shared by every server process: hits of `key` since window_start. */
+export interface AuthThrottleTable {
+  key: string;
+  hits: number;
+  window_start: Timestamp;
+}
+
 export interface PasswordResetsTable {
   id: Generated<string>;
   user_id: string;
@@ -201,6 +208,7 @@ export interface Database {
   invites: InvitesTable;
   password_resets: PasswordResetsTable;
   sessions: SessionsTable;
+  auth_throttle: AuthThrottleTable;
   designs: DesignsTable;
   design_revisions: DesignRevisionsTable;
   dev_mail: DevMailTable;

@@ -12,7 +12,7 @@ import { SESSION_COOKIE, verifySessionToken } from './sessionToken.js';
  * process (see SessionCache). An invalid cookie just means "not signed in".
  */
 export function loadSession({ db, config }: AppDeps): RequestHandler {
-  const cache = sessionCacheFor(db);
+  const cache = sessionCacheFor(db, config.sessionCacheTtlMs);
   return async (req, _res, next) => {
     const token: unknown = req.cookies?.[SESSION_COOKIE];
     if (typeof token !== 'string' || !token) return next();

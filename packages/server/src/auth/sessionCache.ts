@@ -157,10 +157,11 @@ export const SESSION_CHANNEL = 'sigmatail_sessions';
  * through it. It listens on SESSION_CHANNEL, so a change made by any process clears it, and it is
  * only trusted while that LISTEN connection is up.
  */
-export function sessionCacheFor(db: Kysely<Database>): SessionCache {
+export function sessionCacheFor(db: Kysely<Database>, ttlMs?: number): SessionCache {
   let cache = caches.get(db);
   if (!cache) {
-    const c = new SessionCache();
+    // The first caller (loadSession, when the app is built) sets the TTL.
+    const c = new SessionCache(ttlMs);
     cache = c;
     caches.set(db, c);
     c.trusted = false;

@@ -11,8 +11,9 @@ let a: TestApp;
 let b: TestApp;
 beforeAll(async () => {
   const secret = randomBytes(32).toString('hex');
-  a = await startTestApp({ secret });
-  b = await startTestApp({ secret });
+  // A long cache TTL: only the broadcast can clear a cached session within a test.
+  a = await startTestApp({ secret, sessionCacheTtlMs: 120_000 });
+  b = await startTestApp({ secret, sessionCacheTtlMs: 120_000 });
   // Until its LISTEN connection is up a cache is bypassed; wait so the tests exercise the cache.
   for (const app of [a, b]) {
     const cache = sessionCacheFor(app.deps.db);
@@ -24,6 +25,20 @@ afterAll(async () => {
   await a?.close();
   await b?.close();
 });
+
+/**
+ * The status of GET /auth/me once the other process has had the broadcast: NOTIFY reaches it
+ * asynchronously (typically within milliseconds), so poll briefly rather than race it.
+ */
+async function meStatusSettled(client: ReturnType<TestApp['client']>, want: number): Promise<number> {
+  let status = 0;
+  for (let i = 0; i < 100; i++) {
+    status = (await client.get('/api/auth/me')).status;
+    if (status === want) break;
+    await new Promise((r) => setTimeout(r, 10));
+  }
+  return status;
+}
 
 /** The same browser session (cookie) sent to instance `app`. */
 function sameSessionOn(app: TestApp, cookie: string | undefined) {
@@ -41,7 +56,7 @@ describe('sessions across server processes', () => {
     expect((await onB.get('/api/auth/me')).status).toBe(200);
     expect(sessionCacheFor(b.deps.db).size).toBeGreaterThan(0); // B answers from its cache now
     expect((await onA.post('/api/auth/logout')).status).toBe(204);
-    expect((await onB.get('/api/auth/me')).status).toBe(401);
+    expect(await meStatusSettled(onB, 401)).toBe(401);
     // The cleared cookie is not the point: the old token itself is dead on both.
     expect((await sameSessionOn(a, cookie).get('/api/auth/me')).status).toBe(401);
   });
@@ -62,8 +77,8 @@ describe('sessions across server processes', () => {
     expect((await laptop.get('/api/auth/me')).status).toBe(200);
     const onA = sameSessionOn(a, bench.cookie);
     expect((await onA.post('/api/auth/logout', { everywhere: true })).status).toBe(204);
-    expect((await laptop.get('/api/auth/me')).status).toBe(401);
-    expect((await bench.get('/api/auth/me')).status).toBe(401);
+    expect(await meStatusSettled(laptop, 401)).toBe(401);
+    expect(await meStatusSettled(bench, 401)).toBe(401);
   });
 
   it('a role change or removal made on one instance applies on the other at once', async () => {
@@ -73,9 +88,14 @@ describe('sessions across server processes', () => {
     const userOnB = await signIn(b, u);
     expect((await userOnB.get('/api/auth/me')).body.user.role).toBe('engineer');
     expect((await adminOnA.patch(`/api/users/${u.id}`, { role: 'viewer' })).status).toBe(200);
-    expect((await userOnB.get('/api/auth/me')).body.user.role).toBe('viewer');
+    let role = '';
+    for (let i = 0; i < 100 && role !== 'viewer'; i++) {
+      role = (await userOnB.get('/api/auth/me')).body.user.role;
+      if (role !== 'viewer') await new Promise((r) => setTimeout(r, 10));
+    }
+    expect(role).toBe('viewer');
     expect((await adminOnA.delete(`/api/users/${u.id}`)).status).toBe(204);
-    expect((await userOnB.get('/api/auth/me')).status).toBe(401);
+    expect(await meStatusSettled(userOnB, 401)).toBe(401);
   });
 
   it('a session row that was revoked refuses its token even with the cache cold', async () => {

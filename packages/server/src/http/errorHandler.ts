@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
+import { TooManyRequests } from '../auth/throttle.js';
 import { HttpError } from './httpError.js';
 
 export interface ErrorBody {
@@ -17,6 +18,8 @@ export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
   let body: ErrorBody;
   if (err instanceof HttpError) {
     status = err.status;
+    if (err instanceof TooManyRequests && !res.headersSent)
+      res.set('Retry-After', String(err.retryAfterSeconds));
     body = {
       error: {
         message: err.message,
