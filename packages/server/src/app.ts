@@ -5,7 +5,8 @@ import express from 'express';
 import type { AppDeps } from './appDeps.js';
 import { loadSession } from './auth/loadSession.js';
 import { apiRouters } from './apiRouters.js';
-import { apiNotFound, errorHandler } from './http/errorHandler.js';
+import { apiNotFound, errorHandler, JSON_BODY_LIMIT_BYTES } from './http/errorHandler.js';
+import { requireJsonBody } from './http/requireJsonBody.js';
 import { sameOriginGuard } from './http/sameOriginGuard.js';
 import { securityHeaders } from './http/securityHeaders.js';
 
@@ -25,7 +26,8 @@ export function createApp(deps: AppDeps): express.Express {
 
   const api = express.Router();
   api.use(sameOriginGuard(deps.config));
-  api.use(express.json({ limit: '2mb' }));
+  api.use(requireJsonBody);
+  api.use(express.json({ limit: JSON_BODY_LIMIT_BYTES }));
   api.use(cookieParser());
   api.use(loadSession(deps));
   for (const router of apiRouters(deps)) api.use(router);
