@@ -14,8 +14,8 @@ import { sessionCacheFor } from './sessionCache.js';
 import { Throttle } from './throttle.js';
 import { clearSessionCookie, revokeSessions, setSessionCookie } from './sessionCookie.js';
 
-const loginBody = z.object({ email: emailField, password: passwordField });
-const logoutBody = z.object({ everywhere: z.boolean().optional() }).optional();
+export const loginBody = z.object({ email: emailField, password: passwordField });
+export const logoutBody = z.object({ everywhere: z.boolean().optional() }).optional();
 
 // Compared against when the email is unknown, so both cases take the same bcrypt time.
 const DUMMY_HASH = bcrypt.hashSync('not-a-password', BCRYPT_COST);

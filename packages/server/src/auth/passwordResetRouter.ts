@@ -14,8 +14,8 @@ import { hashToken, newMailToken } from './mailToken.js';
 
 // One hour: common practice, no source.
 const RESET_TTL_MS = 60 * 60 * 1000;
-const forgotBody = z.object({ email: emailField });
-const resetBody = z.object({ token: tokenField, password: newPasswordField });
+export const forgotBody = z.object({ email: emailField });
+export const resetBody = z.object({ token: tokenField, password: newPasswordField });
 const FORGOT_ANSWER = { ok: true, message: 'if that address has an account, a reset link is on its way' };
 
 /** POST /auth/forgot (mails a one-hour reset link), POST /auth/reset (sets the new password). */

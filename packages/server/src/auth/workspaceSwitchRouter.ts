@@ -9,7 +9,7 @@ import { requireAuth } from './requireRole.js';
 import { sessionCacheFor } from './sessionCache.js';
 import { revokeSessions, setSessionCookie } from './sessionCookie.js';
 
-const switchBody = z.object({ workspaceId: z.uuid({ message: 'must be a workspace id' }) });
+export const switchBody = z.object({ workspaceId: z.uuid({ message: 'must be a workspace id' }) });
 
 /**
  * GET /auth/workspaces (the signed-in user's memberships), POST /auth/workspace {workspaceId}

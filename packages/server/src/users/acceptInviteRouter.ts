@@ -14,7 +14,7 @@ import { setSessionCookie } from '../auth/sessionCookie.js';
 import { nameField, passwordField, tokenField } from '../http/fields.js';
 import { HttpError } from '../http/httpError.js';
 
-const acceptBody = z.object({ token: tokenField, name: nameField, password: passwordField });
+export const acceptBody = z.object({ token: tokenField, name: nameField, password: passwordField });
 
 function openInvite(db: Kysely<Database>, token: string) {
   return db

@@ -12,7 +12,7 @@ import { uuidParam } from '../http/uuidParam.js';
 
 // Seven days: common practice, no source.
 const INVITE_TTL_MS = 7 * 24 * 3600 * 1000;
-const inviteBody = z.object({ email: emailField, role: roleField });
+export const inviteBody = z.object({ email: emailField, role: roleField });
 
 /** POST /invites (admin): records an invite and mails the link APP_URL/invite/<token>; DELETE /invites/:id revokes it. */
 export function createInvitesRouter({ db, mailer, config }: AppDeps): Router {

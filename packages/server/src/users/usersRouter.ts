@@ -15,7 +15,7 @@ import {
   setMemberRole,
 } from './membersRepo.js';
 
-const patchBody = z.object({ role: roleField });
+export const patchBody = z.object({ role: roleField });
 
 /** GET /users (members and open invites), PATCH /users/:id {role}, DELETE /users/:id (admin only). */
 export function createUsersRouter({ db }: AppDeps): Router {

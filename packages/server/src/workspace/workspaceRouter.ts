@@ -22,7 +22,9 @@ const settingsPatch = z
   })
   .partial()
   .strict();
-const patchBody = z.object({ name: nameField.optional(), settings: settingsPatch.optional() }).strict();
+export const patchBody = z
+  .object({ name: nameField.optional(), settings: settingsPatch.optional() })
+  .strict();
 
 /** GET /workspace (any member), PATCH /workspace {name?, settings?} (admin). */
 export function createWorkspaceRouter({ db }: AppDeps): Router {
