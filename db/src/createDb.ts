@@ -8,11 +8,18 @@ import type { Database } from './schema.js';
  * @param url postgres://user@host:port/dbname
  * @param options.max pool size (default 10)
  * @param options.connectionTimeoutMillis how long to wait for a connection before failing (ms, default 2000)
- * @param options.statementTimeoutMillis longest a statement may run (ms, default 0 = no limit)
+ * @param options.statementTimeoutMillis longest a statement may run on the server (ms, default 0 = no limit)
+ * @param options.queryTimeoutMillis longest the client waits for any answer, e.g. from a database
+ *   that stopped answering on an open connection (ms, default 0 = no limit)
  */
 export function createDb(
   url: string,
-  options: { max?: number; connectionTimeoutMillis?: number; statementTimeoutMillis?: number } = {},
+  options: {
+    max?: number;
+    connectionTimeoutMillis?: number;
+    statementTimeoutMillis?: number;
+    queryTimeoutMillis?: number;
+  } = {},
 ): Kysely<Database> {
   const pool = new pg.Pool({
     connectionString: url,
@@ -20,6 +27,7 @@ export function createDb(
     // A database that does not answer must fail a request quickly (503), not hang it.
     connectionTimeoutMillis: options.connectionTimeoutMillis ?? 2_000,
     ...(options.statementTimeoutMillis ? { statement_timeout: options.statementTimeoutMillis } : {}),
+    ...(options.queryTimeoutMillis ? { query_timeout: options.queryTimeoutMillis } : {}),
   });
   // An idle client that loses its server (restart) must not crash the process.
   pool.on('error', (err) => console.error('postgres pool error:', err.message));

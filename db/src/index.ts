@@ -2,7 +2,7 @@
 export { createDb } from './createDb.js';
 export { listenForNotifications } from './notificationListener.js';
 export { ensureDatabase } from './ensureDatabase.js';
-export { migrateToLatest, migrateDown } from './migrateToLatest.js';
+export { migrateToLatest, migrateDown, pendingMigrations } from './migrateToLatest.js';
 export { DirMigrationProvider, MIGRATIONS_DIR } from './dirMigrationProvider.js';
 export { seedDemo } from './seedDemo.js';
 export { DEMO_DESIGNS } from './demoDesigns.js';

@@ -7,6 +7,8 @@ import { loadSession } from './auth/loadSession.js';
 import { apiRouters } from './apiRouters.js';
 import { apiNotFound, errorHandler, JSON_BODY_LIMIT_BYTES } from './http/errorHandler.js';
 import { requireJsonBody } from './http/requireJsonBody.js';
+import { createLogger, requestLogger } from './http/logger.js';
+import { createProbesRouter } from './http/probesRouter.js';
 import { sameOriginGuard } from './http/sameOriginGuard.js';
 import { securityHeaders } from './http/securityHeaders.js';
 
@@ -22,7 +24,9 @@ export function createApp(deps: AppDeps): express.Express {
   // By default req.ip (the rate-limit key) is the socket address: X-Forwarded-For is not trusted,
   // since any local client could forge it. A deployment behind a proxy sets SIGMATAIL_TRUST_PROXY.
   app.set('trust proxy', deps.config.trustProxy);
+  app.use(requestLogger(deps.logger ?? createLogger()));
   app.use(securityHeaders(deps.config));
+  app.use(createProbesRouter(deps));
 
   const api = express.Router();
   api.use(sameOriginGuard(deps.config));

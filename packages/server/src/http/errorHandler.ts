@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
 import { TooManyRequests } from '../auth/throttle.js';
+import { isDatabaseUnavailable } from './databaseUnavailable.js';
 import { HttpError } from './httpError.js';
 import { locateJsonError } from './locateJsonError.js';
 
@@ -25,7 +26,7 @@ export const apiNotFound: RequestHandler = (req, _res, next) => {
 };
 
 /** Every error becomes JSON. Client mistakes are 4xx naming the field; only real faults are 500. */
-export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
+export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   let status = 500;
   let body: ErrorBody;
   if (err instanceof HttpError) {
@@ -78,8 +79,13 @@ export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
     } else {
       body = { error: { message: err.message } };
     }
+  } else if (isDatabaseUnavailable(err)) {
+    status = 503;
+    res.set('Retry-After', '5');
+    body = { error: { message: 'the database is unavailable right now; try again in a few seconds' } };
+    req.log?.warn({ err }, 'database unavailable');
   } else {
-    console.error(err);
+    (req.log ?? console).error({ err }, 'unhandled error');
     body = { error: { message: 'internal error' } };
   }
   if (res.headersSent) return;
