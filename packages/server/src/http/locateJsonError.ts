@@ -53,7 +53,7 @@ export function locateJsonError(text: string): JsonErrorLocation | null {
     i += m![0].length;
   };
   const value = (depth: number): void => {
-    if (depth > 10_000) fail();
+    if (depth > 2_000) fail(); // deeper than any real request; keeps the scan off the stack limit
     ws();
     const ch = text[i];
     if (ch === '{') {
@@ -97,6 +97,7 @@ export function locateJsonError(text: string): JsonErrorLocation | null {
     if (i < text.length) fail();
     return null;
   } catch (at) {
+    if (at instanceof RangeError) return null; // call stack exhausted: no position to report
     if (typeof at !== 'number') throw at;
     const before = text.slice(0, at);
     const line = before.split('\n').length;
