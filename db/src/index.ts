@@ -1,8 +1,9 @@
 // Public surface of the database package: connection, migrations, demo seed and table types.
 export { createDb } from './createDb.js';
 export { isConnectionError } from './isConnectionError.js';
+export { listenForNotifications } from './notificationListener.js';
 export { ensureDatabase } from './ensureDatabase.js';
-export { migrateToLatest, migrateDown } from './migrateToLatest.js';
+export { migrateToLatest, migrateDown, pendingMigrations } from './migrateToLatest.js';
 export { DirMigrationProvider, MIGRATIONS_DIR } from './dirMigrationProvider.js';
 export { seedDemo } from './seedDemo.js';
 export { DEMO_DESIGNS } from './demoDesigns.js';

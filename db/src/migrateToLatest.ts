@@ -24,3 +24,9 @@ export async function migrateToLatest(db: Kysely<Database>): Promise<string[]> {
 export async function migrateDown(db: Kysely<Database>): Promise<string[]> {
   return check(await migrator(db).migrateDown());
 }
+
+/** Names of migrations in the code that the database has not applied (empty: the schema is current). */
+export async function pendingMigrations(db: Kysely<Database>): Promise<string[]> {
+  const all = await migrator(db).getMigrations();
+  return all.filter((m) => !m.executedAt).map((m) => m.name);
+}

@@ -63,6 +63,23 @@ export interface InvitesTable {
   created_at: CreatedAt;
 }
 
+/** A signed-in session; the session token carries its id, and a revoked or expired row refuses the token. */
+export interface SessionsTable {
+  id: Generated<string>;
+  user_id: string;
+  created_at: CreatedAt;
+  expires_at: Timestamp;
+  /** Set by sign-out (this session) or sign-out everywhere (every session of the user). */
+  revoked_at: NullableTimestamp;
+}
+
+/** A rate-limit counter shared by every server process: hits of `key` since window_start. */
+export interface AuthThrottleTable {
+  key: string;
+  hits: number;
+  window_start: Timestamp;
+}
+
 export interface PasswordResetsTable {
   id: Generated<string>;
   user_id: string;
@@ -190,6 +207,8 @@ export interface Database {
   memberships: MembershipsTable;
   invites: InvitesTable;
   password_resets: PasswordResetsTable;
+  sessions: SessionsTable;
+  auth_throttle: AuthThrottleTable;
   designs: DesignsTable;
   design_revisions: DesignRevisionsTable;
   dev_mail: DevMailTable;

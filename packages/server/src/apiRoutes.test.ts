@@ -46,12 +46,22 @@ let app: TestApp;
 let access: Record<string, RouteAccess>;
 let routes: string[];
 const clients = {} as Record<Who, TestClient>;
+let team: Awaited<ReturnType<typeof buildTeam>>;
+
+/**
+ * A client for `who` to call `route` with: a copy of the shared session, except for sign-out,
+ * which revokes its session server-side and so gets a session of its own.
+ */
+async function clientFor(who: Who, route: string): Promise<TestClient> {
+  if (route === 'POST /api/auth/logout' && who !== 'anonymous') return signIn(app, team[who]);
+  return Object.assign(Object.create(Object.getPrototypeOf(clients[who])), clients[who]) as TestClient;
+}
 
 beforeAll(async () => {
   app = await startTestApp();
   access = await loadAccessTables();
   routes = listApiRoutes(createApp(app.deps));
-  const team = await buildTeam(app.deps.db);
+  team = await buildTeam(app.deps.db);
   clients.anonymous = app.client();
   for (const role of ROLES) clients[role] = await signIn(app, team[role]);
 });
@@ -78,11 +88,7 @@ describe('role × route matrix', () => {
       const url = pattern.replace(/:[A-Za-z]+/g, () => randomUUID());
       for (const who of ['anonymous', ...ROLES] as Who[]) {
         const want = expected(access[route]!, who);
-        // A fresh copy of the session each time: POST /auth/logout must not sign the shared client out.
-        const client = Object.assign(
-          Object.create(Object.getPrototypeOf(clients[who])),
-          clients[who],
-        ) as TestClient;
+        const client = await clientFor(who, route);
         const res = await client.request(
           method,
           url,
@@ -112,10 +118,7 @@ describe('role × route matrix', () => {
       for (const bad of ['not-an-id', '12345', '%20']) {
         const url = pattern.replace(/:[A-Za-z]+/g, bad);
         if (url === pattern && bad !== 'not-an-id') continue;
-        const client = Object.assign(
-          Object.create(Object.getPrototypeOf(clients.admin)),
-          clients.admin,
-        ) as TestClient;
+        const client = await clientFor('admin', route);
         const res = await client.request(
           method,
           url,

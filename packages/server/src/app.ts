@@ -5,7 +5,12 @@ import express from 'express';
 import type { AppDeps } from './appDeps.js';
 import { loadSession } from './auth/loadSession.js';
 import { apiRouters } from './apiRouters.js';
-import { apiNotFound, errorHandler } from './http/errorHandler.js';
+import { apiNotFound, errorHandler, JSON_BODY_LIMIT_BYTES } from './http/errorHandler.js';
+import { requireJsonBody } from './http/requireJsonBody.js';
+import { createLogger, requestLogger } from './http/logger.js';
+import { createProbesRouter } from './http/probesRouter.js';
+import { sameOriginGuard } from './http/sameOriginGuard.js';
+import { securityHeaders } from './http/securityHeaders.js';
 
 export type { AppDeps } from './appDeps.js';
 
@@ -16,11 +21,17 @@ export type { AppDeps } from './appDeps.js';
 export function createApp(deps: AppDeps): express.Express {
   const app = express();
   app.disable('x-powered-by');
-  // req.ip (the rate-limit key) is the socket address: X-Forwarded-For is not trusted, since any
-  // local client could forge it. A deployment behind a proxy sets 'trust proxy' for its hop.
+  // By default req.ip (the rate-limit key) is the socket address: X-Forwarded-For is not trusted,
+  // since any local client could forge it. A deployment behind a proxy sets SIGMATAIL_TRUST_PROXY.
+  app.set('trust proxy', deps.config.trustProxy);
+  app.use(requestLogger(deps.logger ?? createLogger()));
+  app.use(securityHeaders(deps.config));
+  app.use(createProbesRouter(deps));
 
   const api = express.Router();
-  api.use(express.json({ limit: '2mb' }));
+  api.use(sameOriginGuard(deps.config));
+  api.use(requireJsonBody);
+  api.use(express.json({ limit: JSON_BODY_LIMIT_BYTES }));
   api.use(cookieParser());
   api.use(loadSession(deps));
   for (const router of apiRouters(deps)) api.use(router);

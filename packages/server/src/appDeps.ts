@@ -1,5 +1,6 @@
 import type { Database } from '@sigmatail/db';
 import type { Kysely } from 'kysely';
+import type { Logger } from 'pino';
 import type { AppConfig } from './config.js';
 import type { Mailer } from './mail/mailer.js';
 
@@ -8,4 +9,6 @@ export interface AppDeps {
   db: Kysely<Database>;
   mailer: Mailer;
   config: AppConfig;
+  /** Structured logger (pino); createApp makes one from LOG_LEVEL when absent. */
+  logger?: Logger;
 }

@@ -64,4 +64,27 @@ describe.concurrent('main (process entry)', () => {
       child.kill('SIGTERM');
     }
   });
+
+  it('is ready on /readyz, logs JSON lines, and on SIGTERM finishes and exits 0', async () => {
+    const { child, done } = runMain(
+      { PORT: '0', SMTP_PORT: '0', SIGMATAIL_MAIL_FAKE: '1', LOG_LEVEL: 'info' },
+      /on http:\/\/127\.0\.0\.1:(\d+)/,
+    );
+    const { stdout } = await done;
+    const port = /127\.0\.0\.1:(\d+)/.exec(stdout)![1];
+    const ready = await fetch(`http://127.0.0.1:${port}/readyz`);
+    expect(ready.status).toBe(200);
+    let out = '';
+    child.stdout!.on('data', (d: Buffer) => (out += d.toString()));
+    const exited = new Promise<number | null>((r) => child.once('exit', r));
+    child.kill('SIGTERM');
+    expect(await exited).toBe(0);
+    const messages = out
+      .split('\n')
+      .filter((l) => l.startsWith('{'))
+      .map((l) => (JSON.parse(l) as { msg: string }).msg);
+    expect(messages).toEqual(
+      expect.arrayContaining(['shutting down: finishing requests in flight', 'stopped']),
+    );
+  });
 });

@@ -39,7 +39,17 @@ export function readSecret(env: NodeJS.ProcessEnv, dataDir = path.join(REPO_ROOT
   return secret;
 }
 
-/** Reads DATABASE_URL, PORT, SMTP_PORT, APP_URL, SIGMATAIL_SECRET (see README). */
+/** SIGMATAIL_TRUST_PROXY: unset/false, true, a hop count, or Express's names ('loopback', addresses). */
+function trustProxyEnv(raw: string | undefined): boolean | number | string {
+  if (raw === undefined || raw === '' || raw === 'false' || raw === '0') return false;
+  if (raw === 'true') return true;
+  return /^\d+$/.test(raw) ? Number(raw) : raw;
+}
+
+/**
+ * Reads DATABASE_URL, PORT, SMTP_PORT, APP_URL, SIGMATAIL_SECRET, SIGMATAIL_ALLOWED_ORIGINS
+ * (comma-separated), SIGMATAIL_TRUST_PROXY (see README).
+ */
 export function readEnvConfig(env: NodeJS.ProcessEnv = process.env): EnvConfig {
   const appUrl = (env.APP_URL || DEFAULT_CONFIG.appUrl).replace(/\/+$/, '');
   return {
@@ -51,5 +61,10 @@ export function readEnvConfig(env: NodeJS.ProcessEnv = process.env): EnvConfig {
     cookieSecure: appUrl.startsWith('https:'),
     secret: readSecret(env),
     webDist: path.join(REPO_ROOT, 'packages/web/dist'),
+    allowedOrigins: (env.SIGMATAIL_ALLOWED_ORIGINS ?? '')
+      .split(',')
+      .map((o) => o.trim())
+      .filter(Boolean),
+    trustProxy: trustProxyEnv(env.SIGMATAIL_TRUST_PROXY),
   };
 }

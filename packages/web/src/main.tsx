@@ -1,3 +1,4 @@
+import './zodJitless.js';
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import { QueryClientProvider } from '@tanstack/react-query';

@@ -1,4 +1,3 @@
-import bcrypt from 'bcryptjs';
 import { Router } from 'express';
 import { z } from 'zod';
 import type { AppDeps } from '../appDeps.js';
@@ -6,22 +5,32 @@ import { recordAudit } from '../audit/recordAudit.js';
 import { emailField, newPasswordField, tokenField } from '../http/fields.js';
 import { HttpError } from '../http/httpError.js';
 import { findSessionUser } from './findSessionUser.js';
-import { forgotRateLimit } from './loginRateLimit.js';
+import { assertPasswordPolicy, hashPassword } from './passwordPolicy.js';
+import { forgotRules, sourceKey } from './authThrottleRules.js';
 import { sessionCacheFor } from './sessionCache.js';
+import { Throttle } from './throttle.js';
+import { revokeSessions } from './sessionCookie.js';
 import { hashToken, newMailToken } from './mailToken.js';
 
 // One hour: common practice, no source.
 const RESET_TTL_MS = 60 * 60 * 1000;
-const forgotBody = z.object({ email: emailField });
-const resetBody = z.object({ token: tokenField, password: newPasswordField });
+export const forgotBody = z.object({ email: emailField });
+export const resetBody = z.object({ token: tokenField, password: newPasswordField });
 const FORGOT_ANSWER = { ok: true, message: 'if that address has an account, a reset link is on its way' };
 
 /** POST /auth/forgot (mails a one-hour reset link), POST /auth/reset (sets the new password). */
 export function createPasswordResetRouter({ db, mailer, config }: AppDeps): Router {
   const router = Router();
+  const throttle = new Throttle(db, config.rateLimitScope);
 
-  router.post('/auth/forgot', forgotRateLimit(config), async (req, res) => {
+  router.post('/auth/forgot', async (req, res) => {
     const { email } = forgotBody.parse(req.body ?? {});
+    const rules = forgotRules(config, email, sourceKey(req));
+    await throttle.check(
+      rules,
+      'too many reset requests from your address; wait a few minutes and try again',
+    );
+    await throttle.hit(rules);
     const user = await findSessionUser(db, { email });
     // The same answer whether or not the address exists; the mail goes out after replying, so
     // neither the body nor a slow or failing mail server tells the two cases apart.
@@ -46,7 +55,6 @@ export function createPasswordResetRouter({ db, mailer, config }: AppDeps): Rout
 
   router.post('/auth/reset', async (req, res) => {
     const { token, password } = resetBody.parse(req.body ?? {});
-    const passwordHash = await bcrypt.hash(password, 10);
     const userId = await db.transaction().execute(async (tx) => {
       // Claiming the row in the update makes a token single-use even under concurrent requests.
       const reset = await tx
@@ -58,12 +66,20 @@ export function createPasswordResetRouter({ db, mailer, config }: AppDeps): Rout
         .returning('user_id')
         .executeTakeFirst();
       if (!reset) throw new HttpError(400, 'this reset link is invalid, used or expired', 'token');
+      const owner = await tx
+        .selectFrom('users')
+        .select('email')
+        .where('id', '=', reset.user_id)
+        .executeTakeFirstOrThrow();
+      assertPasswordPolicy(password, owner.email); // a refusal rolls back, so the link still works
+      const passwordHash = await hashPassword(password);
       // A new password also signs out every existing session.
       await tx
         .updateTable('users')
         .set((eb) => ({ password_hash: passwordHash, session_epoch: eb('session_epoch', '+', 1) }))
         .where('id', '=', reset.user_id)
         .execute();
+      await revokeSessions(tx, { everyOf: reset.user_id });
       const member = await findSessionUser(tx, { userId: reset.user_id });
       await recordAudit(tx, {
         workspaceId: member?.workspaceId ?? null,
@@ -72,7 +88,7 @@ export function createPasswordResetRouter({ db, mailer, config }: AppDeps): Rout
       });
       return reset.user_id;
     });
-    sessionCacheFor(db).forgetUser(userId); // older sessions are refused from the next request on
+    await sessionCacheFor(db).forgetUser(userId); // older sessions are refused from the next request on
     res.json({ ok: true });
   });
 

@@ -10,6 +10,8 @@ export interface SessionUser {
   workspaceId: string;
   workspaceName: string;
   role: Role;
+  /** The session (row in `sessions`) this request is signed in with; absent on users not loaded from a cookie. */
+  sessionId?: string;
 }
 
 declare global {

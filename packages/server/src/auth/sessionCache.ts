@@ -1,5 +1,6 @@
 import type { Database } from '@sigmatail/db';
-import type { Kysely } from 'kysely';
+import { listenForNotifications } from '@sigmatail/db';
+import { sql, type Kysely } from 'kysely';
 import type { SessionUser } from './requireRole.js';
 
 /** What resolving a token gives: the signed-in user (null = valid signature, but no access) and when the token expires (ms). */
@@ -21,9 +22,11 @@ interface Entry {
  * A short-lived cache of resolved session tokens (signature checked, user and membership read), so
  * many requests on one session cost one token check and one query per `ttlMs`.
  *
- * A removed member, a changed role or a bumped session_epoch must still take effect at once, so
- * every route that changes them calls forgetUser / forgetAll after its transaction commits. That is
- * in-process only: another server process on the same database sees the change within `ttlMs`.
+ * A removed member, a changed role, a sign-out or a bumped session_epoch must still take effect at
+ * once, in every server process: every route that changes them awaits forgetUser / forgetAll after
+ * its transaction commits, which clears this cache and broadcasts the change (PostgreSQL NOTIFY,
+ * see sessionCacheFor) so the caches of other processes on the same database drop it too. While
+ * that broadcast channel is down the cache is not trusted: every request reads the database.
  * A load that started before a forget is not stored (generation check), so a lookup racing a
  * change cannot put the old answer back. Concurrent misses on one token share one load, and a hit
  * in the second half of the TTL reloads in the background, so steady traffic never waits on it.
@@ -32,6 +35,10 @@ export class SessionCache {
   private readonly entries = new Map<string, Entry>();
   private readonly loading = new Map<string, Promise<SessionUser | null>>();
   private generation = 0;
+  /** False while changes made by other processes might be missed: then nothing is served from the cache. */
+  trusted = true;
+  /** Tells the other processes (and this one) that a user's sessions changed; '*' = everyone's. */
+  broadcast: (userIdOrAll: string) => Promise<void> = async () => undefined;
 
   constructor(
     private readonly ttlMs = 1_000,
@@ -48,6 +55,10 @@ export class SessionCache {
     token: string,
     load: () => Promise<(ResolvedSession & { userId: string }) | undefined>,
   ): Promise<SessionUser | null> {
+    if (!this.trusted) {
+      const resolved = await load();
+      return resolved ? resolved.user : null;
+    }
     const now = this.now();
     const hit = this.entries.get(token);
     if (hit && now < hit.until) {
@@ -90,15 +101,30 @@ export class SessionCache {
     return promise;
   }
 
-  /** Drops every entry of one user (membership, role, session epoch or password changed). */
-  forgetUser(userId: string): void {
+  /**
+   * Drops every entry of one user (membership, role, session, epoch or password changed), here and
+   * in every other process; resolves once the broadcast is sent.
+   */
+  async forgetUser(userId: string): Promise<void> {
+    this.forgetLocal(userId);
+    await this.broadcast(userId);
+  }
+
+  /** Drops everything, here and in every other process (e.g. a workspace renamed: its name is part of every member's session). */
+  async forgetAll(): Promise<void> {
+    this.forgetAllLocal();
+    await this.broadcast('*');
+  }
+
+  /** Drops one user's entries in this process only (what a received broadcast does). */
+  forgetLocal(userId: string): void {
     this.generation++;
     this.loading.clear();
     for (const [token, entry] of this.entries) if (entry.userId === userId) this.entries.delete(token);
   }
 
-  /** Drops everything (e.g. a workspace renamed: its name is part of every member's session). */
-  forgetAll(): void {
+  /** Drops every entry in this process only. */
+  forgetAllLocal(): void {
     this.generation++;
     this.loading.clear();
     this.entries.clear();
@@ -122,15 +148,38 @@ export class SessionCache {
 
 const caches = new WeakMap<Kysely<Database>, SessionCache>();
 
+/** The NOTIFY channel on which session changes are broadcast; the payload is a user id or '*'. */
+export const SESSION_CHANNEL = 'sigmatail_sessions';
+
 /**
  * The session cache of one database handle: loadSession reads through it and the routes that
- * change memberships, roles, epochs or passwords (all given the same AppDeps.db) forget through it.
+ * change memberships, roles, sessions, epochs or passwords (all given the same AppDeps.db) forget
+ * through it. It listens on SESSION_CHANNEL, so a change made by any process clears it, and it is
+ * only trusted while that LISTEN connection is up.
  */
-export function sessionCacheFor(db: Kysely<Database>): SessionCache {
+export function sessionCacheFor(db: Kysely<Database>, ttlMs?: number): SessionCache {
   let cache = caches.get(db);
   if (!cache) {
-    cache = new SessionCache();
-    caches.set(db, cache);
+    // The first caller (loadSession, when the app is built) sets the TTL.
+    const c = new SessionCache(ttlMs);
+    cache = c;
+    caches.set(db, c);
+    c.trusted = false;
+    c.broadcast = async (payload) => {
+      await sql`select pg_notify(${SESSION_CHANNEL}, ${payload})`.execute(db);
+    };
+    try {
+      listenForNotifications(db, {
+        channel: SESSION_CHANNEL,
+        onMessage: (payload) => (payload === '*' ? c.forgetAllLocal() : c.forgetLocal(payload)),
+        onState: (connected) => {
+          c.forgetAllLocal();
+          c.trusted = connected;
+        },
+      });
+    } catch {
+      // A handle not made by createDb: no broadcast channel, so the cache stays untrusted (unused).
+    }
   }
   return cache;
 }

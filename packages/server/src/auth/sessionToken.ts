@@ -1,13 +1,19 @@
 import { jwtVerify, SignJWT } from 'jose';
 
-/** What a session token carries: who, in which workspace, and the user's session epoch when issued. */
+/**
+ * What a session token carries: who, in which workspace, the user's session epoch when issued,
+ * and the id of its row in `sessions` (sid; signing out revokes that row).
+ */
 export interface SessionClaims {
   userId: string;
   workspaceId: string;
   epoch: number;
+  sessionId: string;
 }
 
 export const SESSION_COOKIE = 'sigmatail_session';
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 const key = (secret: string): Uint8Array => new TextEncoder().encode(secret);
 
@@ -17,7 +23,7 @@ export async function signSessionToken(
   secret: string,
   ttlSeconds: number,
 ): Promise<string> {
-  return new SignJWT({ ws: claims.workspaceId, ep: claims.epoch })
+  return new SignJWT({ ws: claims.workspaceId, ep: claims.epoch, sid: claims.sessionId })
     .setProtectedHeader({ alg: 'HS256' })
     .setSubject(claims.userId)
     .setIssuedAt()
@@ -35,13 +41,20 @@ export async function verifySessionToken(
 ): Promise<(SessionClaims & { expiresAt: number }) | null> {
   try {
     const { payload } = await jwtVerify(token, key(secret), { algorithms: ['HS256'] });
-    if (typeof payload.sub !== 'string' || typeof payload.ws !== 'string' || typeof payload.ep !== 'number') {
+    if (
+      typeof payload.sub !== 'string' ||
+      typeof payload.ws !== 'string' ||
+      typeof payload.ep !== 'number' ||
+      typeof payload.sid !== 'string' ||
+      !UUID.test(payload.sid)
+    ) {
       return null;
     }
     return {
       userId: payload.sub,
       workspaceId: payload.ws,
       epoch: payload.ep,
+      sessionId: payload.sid,
       expiresAt: typeof payload.exp === 'number' ? payload.exp * 1000 : Infinity,
     };
   } catch {

@@ -6,9 +6,10 @@ import { HttpError } from '../http/httpError.js';
 import { findSessionUser } from './findSessionUser.js';
 import { presentMe } from './presentMe.js';
 import { requireAuth } from './requireRole.js';
-import { setSessionCookie } from './sessionCookie.js';
+import { sessionCacheFor } from './sessionCache.js';
+import { revokeSessions, setSessionCookie } from './sessionCookie.js';
 
-const switchBody = z.object({ workspaceId: z.uuid({ message: 'must be a workspace id' }) });
+export const switchBody = z.object({ workspaceId: z.uuid({ message: 'must be a workspace id' }) });
 
 /**
  * GET /auth/workspaces (the signed-in user's memberships), POST /auth/workspace {workspaceId}
@@ -36,7 +37,11 @@ export function createWorkspaceSwitchRouter({ db, config }: AppDeps): Router {
       res,
       { userId: me.id, workspaceId: me.workspaceId, epoch: me.sessionEpoch },
       config,
+      db,
     );
+    // The cookie of the workspace left behind is replaced, so its session ends.
+    if (req.user!.sessionId) await revokeSessions(db, { sessionId: req.user!.sessionId });
+    await sessionCacheFor(db).forgetUser(me.id);
     await recordAudit(db, { workspaceId: me.workspaceId, userId: me.id, action: 'auth.switch_workspace' });
     const { sessionEpoch: _e, passwordHash: _p, ...user } = me;
     res.json(presentMe(user));

@@ -22,11 +22,11 @@ const listQuery = z.object({
     .enum(['exclude', 'include', 'only'], { message: 'must be exclude, include or only' })
     .default('exclude'),
 });
-const saveBody = z.object({
+export const saveBody = z.object({
   document: z.unknown(),
   message: z.string().trim().max(500, 'must be at most 500 characters').optional(),
 });
-const archiveBody = z.object({ archived: z.boolean().default(true) }).default({ archived: true });
+export const archiveBody = z.object({ archived: z.boolean().default(true) }).default({ archived: true });
 const revParam = z.coerce.number().int().min(1).max(2_147_483_647);
 
 /** Designs API: list/search, create, read, revisions (each save is a new immutable revision), archive. */

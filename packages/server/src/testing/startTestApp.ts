@@ -25,6 +25,8 @@ export async function startTestApp(overrides: Partial<AppConfig> = {}): Promise<
     ...DEFAULT_CONFIG,
     secret: randomBytes(32).toString('hex'),
     appUrl: 'http://app.test',
+    // Own rate-limit counters: test files run in parallel from one address on one database.
+    rateLimitScope: `test-${randomBytes(6).toString('hex')}`,
     ...overrides,
   };
   const mailer = createSmtpMailer({ port: fake.port, from: config.mailFrom });

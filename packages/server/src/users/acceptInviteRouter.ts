@@ -9,11 +9,12 @@ import { findSessionUser } from '../auth/findSessionUser.js';
 import { sessionCacheFor } from '../auth/sessionCache.js';
 import { hashToken } from '../auth/mailToken.js';
 import { presentMe } from '../auth/presentMe.js';
+import { assertPasswordPolicy, hashPassword } from '../auth/passwordPolicy.js';
 import { setSessionCookie } from '../auth/sessionCookie.js';
-import { nameField, newPasswordField, tokenField } from '../http/fields.js';
+import { nameField, passwordField, tokenField } from '../http/fields.js';
 import { HttpError } from '../http/httpError.js';
 
-const acceptBody = z.object({ token: tokenField, name: nameField, password: newPasswordField });
+export const acceptBody = z.object({ token: tokenField, name: nameField, password: passwordField });
 
 function openInvite(db: Kysely<Database>, token: string) {
   return db
@@ -55,7 +56,6 @@ export function createAcceptInviteRouter({ db, config }: AppDeps): Router {
 
   router.post('/auth/accept-invite', async (req, res) => {
     const { token, name, password } = acceptBody.parse(req.body ?? {});
-    const passwordHash = await bcrypt.hash(password, 10);
     const userId = await db.transaction().execute(async (tx) => {
       const invite = await openInvite(tx, token).forUpdate('i').executeTakeFirst();
       if (!invite) throw new HttpError(400, 'this invite link is invalid, used or expired', 'token');
@@ -74,9 +74,10 @@ export function createAcceptInviteRouter({ db, config }: AppDeps): Router {
           );
         }
       } else {
+        assertPasswordPolicy(password, invite.email);
         user = await tx
           .insertInto('users')
-          .values({ email: invite.email, name, password_hash: passwordHash })
+          .values({ email: invite.email, name, password_hash: await hashPassword(password) })
           .returning(['id', 'password_hash'])
           .executeTakeFirstOrThrow();
       }
@@ -96,13 +97,14 @@ export function createAcceptInviteRouter({ db, config }: AppDeps): Router {
       return { id: user.id, workspaceId: invite.workspace_id };
     });
     // A rejoining member's older session for this workspace is valid again (same epoch).
-    sessionCacheFor(db).forgetUser(userId.id);
+    await sessionCacheFor(db).forgetUser(userId.id);
     const me = await findSessionUser(db, { userId: userId.id, workspaceId: userId.workspaceId });
     if (!me) throw new HttpError(409, 'the membership was removed meanwhile');
     await setSessionCookie(
       res,
       { userId: me.id, workspaceId: me.workspaceId, epoch: me.sessionEpoch },
       config,
+      db,
     );
     const { sessionEpoch: _e, passwordHash: _p, ...user } = me;
     res.json(presentMe(user));

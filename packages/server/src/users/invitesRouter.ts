@@ -3,7 +3,9 @@ import { z } from 'zod';
 import type { AppDeps } from '../appDeps.js';
 import { recordAudit } from '../audit/recordAudit.js';
 import { newMailToken } from '../auth/mailToken.js';
+import { inviteRules } from '../auth/authThrottleRules.js';
 import { requireRole } from '../auth/requireRole.js';
+import { Throttle } from '../auth/throttle.js';
 import { emailField, roleField } from '../http/fields.js';
 import { HttpError } from '../http/httpError.js';
 import { uuidParam } from '../http/uuidParam.js';
@@ -11,15 +13,18 @@ import { escapeHtml } from '../mail/escapeHtml.js';
 
 // Seven days: common practice, no source.
 const INVITE_TTL_MS = 7 * 24 * 3600 * 1000;
-const inviteBody = z.object({ email: emailField, role: roleField });
+export const inviteBody = z.object({ email: emailField, role: roleField });
 
 /** POST /invites (admin): records an invite and mails the link APP_URL/invite/<token>; DELETE /invites/:id revokes it. */
 export function createInvitesRouter({ db, mailer, config }: AppDeps): Router {
   const router = Router();
+  const throttle = new Throttle(db, config.rateLimitScope);
 
   router.post('/invites', requireRole('admin'), async (req, res) => {
     const { email, role } = inviteBody.parse(req.body ?? {});
     const admin = req.user!;
+    const rules = inviteRules(config, admin.workspaceId);
+    await throttle.check(rules, 'too many invites sent from this workspace; wait a while and try again');
     const member = await db
       .selectFrom('memberships as m')
       .innerJoin('users as u', 'u.id', 'm.user_id')
@@ -42,6 +47,7 @@ export function createInvitesRouter({ db, mailer, config }: AppDeps): Router {
       })
       .returning(['id', 'email', 'role', 'expires_at'])
       .executeTakeFirstOrThrow();
+    await throttle.hit(rules);
     const link = `${config.appUrl}/invite/${token}`;
     try {
       await mailer.send({

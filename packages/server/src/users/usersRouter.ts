@@ -15,7 +15,7 @@ import {
   setMemberRole,
 } from './membersRepo.js';
 
-const patchBody = z.object({ role: roleField });
+export const patchBody = z.object({ role: roleField });
 
 /** GET /users (members and open invites), PATCH /users/:id {role}, DELETE /users/:id (admin only). */
 export function createUsersRouter({ db }: AppDeps): Router {
@@ -43,7 +43,7 @@ export function createUsersRouter({ db }: AppDeps): Router {
         detail: { from: before, to: role },
       });
     });
-    sessions.forgetUser(userId); // the new role applies to the member's very next request
+    await sessions.forgetUser(userId); // the new role applies to the member's very next request
     const user = await db
       .selectFrom('users')
       .select(['id', 'email', 'name'])
@@ -67,7 +67,7 @@ export function createUsersRouter({ db }: AppDeps): Router {
         detail: { role: before },
       });
     });
-    sessions.forgetUser(userId); // the removed member's very next request is refused
+    await sessions.forgetUser(userId); // the removed member's very next request is refused
     res.status(204).end();
   });
 

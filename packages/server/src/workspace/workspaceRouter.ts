@@ -22,7 +22,9 @@ const settingsPatch = z
   })
   .partial()
   .strict();
-const patchBody = z.object({ name: nameField.optional(), settings: settingsPatch.optional() }).strict();
+export const patchBody = z
+  .object({ name: nameField.optional(), settings: settingsPatch.optional() })
+  .strict();
 
 /** GET /workspace (any member), PATCH /workspace {name?, settings?} (admin). */
 export function createWorkspaceRouter({ db }: AppDeps): Router {
@@ -66,7 +68,7 @@ export function createWorkspaceRouter({ db }: AppDeps): Router {
         detail: body,
       });
     });
-    if (body.name) sessionCacheFor(db).forgetAll(); // the name is part of every member's session
+    if (body.name) await sessionCacheFor(db).forgetAll(); // the name is part of every member's session
     res.json({ workspace: await load(user.workspaceId) });
   });
 

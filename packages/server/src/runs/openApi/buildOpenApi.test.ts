@@ -4,6 +4,7 @@ import { createApp } from '../../app.js';
 import { listApiRoutes } from '../../http/listApiRoutes.js';
 import { startTestApp, type TestApp } from '../../testing/startTestApp.js';
 import { runsRouteAccess } from '../runsRouteAccess.js';
+import { loadRouteBodies } from './buildOpenApi.js';
 import { OPENAPI_FILE } from './openApiFile.js';
 
 type Doc = { openapi: string; paths: Record<string, Record<string, { 'x-sigmatail-access': unknown }>> };
@@ -47,5 +48,50 @@ describe('OpenAPI document', () => {
     const snapshot = JSON.parse(await readFile(OPENAPI_FILE, 'utf8')) as Doc;
     expect(snapshot.openapi).toBe('3.1.0');
     expect(routesOf(snapshot)).toEqual(expect.arrayContaining(Object.keys(runsRouteAccess)));
+  });
+
+  it('every route that can take a body has an entry in a *RouteBodies.ts table (its schema, or null)', async () => {
+    const routes = listApiRoutes(createApp(app.deps)).filter((r) => !/^(GET|HEAD|OPTIONS) /.test(r));
+    const bodies = await loadRouteBodies();
+    const missing = routes.filter((r) => !(r in bodies));
+    expect(missing, 'add these routes to a *RouteBodies.ts table (null when they take no body)').toEqual([]);
+    const stale = Object.keys(bodies).filter((r) => !routes.includes(r));
+    expect(stale, 'these body entries name no registered route').toEqual([]);
+  });
+
+  it('declares the JSON request body of every route that takes one, from its zod schema', async () => {
+    type Op = {
+      requestBody?: { required: boolean; content: Record<string, { schema: Record<string, unknown> }> };
+    };
+    const doc = (await app.client().get('/api/openapi.json')).body as {
+      paths: Record<string, Record<string, Op>>;
+    };
+    const bodies = await loadRouteBodies();
+    for (const [route, schema] of Object.entries(bodies)) {
+      const [method, pattern] = route.split(' ') as [string, string];
+      const op = doc.paths[pattern.replace(/:([A-Za-z]+)/g, '{$1}')]![method.toLowerCase()]!;
+      if (schema === null) {
+        expect(op.requestBody, route).toBeUndefined();
+        continue;
+      }
+      expect(op.requestBody?.content['application/json']?.schema, route).toBeTruthy();
+    }
+    const login = doc.paths['/api/auth/login']!.post!.requestBody!;
+    expect(login.required).toBe(true);
+    expect(login.content['application/json']!.schema).toMatchObject({
+      type: 'object',
+      required: ['email', 'password'],
+      properties: { email: { type: 'string', maxLength: 254 } },
+    });
+    const design = doc.paths['/api/designs']!.post!.requestBody!.content['application/json']!.schema;
+    expect(design).toMatchObject({
+      properties: { document: { $ref: '#/components/schemas/DesignDocument' } },
+    });
+    expect(doc.paths['/api/auth/logout']!.post!.requestBody!.required).toBe(false);
+    expect(
+      doc.paths['/api/workspace']!.patch!.requestBody!.content['application/json']!.schema,
+    ).toMatchObject({
+      additionalProperties: false,
+    });
   });
 });

@@ -2,22 +2,46 @@ import { readdir } from 'node:fs/promises';
 import path from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { z } from 'zod';
+import { designJsonSchema } from '@sigmatail/engine';
 import type { RouteAccess, RouteAccessTable } from '../../http/routeAccess.js';
+import type { RouteBodyTable } from '../../http/routeBodies.js';
 import { launchRunBody, listRunsQuery, runView, samplesQuery } from '../runSchemas.js';
 
 const SRC = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 
-/** Every 'METHOD /api/path' → access, from all *RouteAccess.ts tables (as the role matrix test reads them). */
-export async function loadRouteAccess(): Promise<Record<string, RouteAccess>> {
+/** Every table exported by the files under src/ named …<suffix>.ts, merged (later files win a duplicate key). */
+async function loadTables<T>(suffix: string): Promise<Record<string, T>> {
   const files = (await readdir(SRC, { recursive: true }))
-    .filter((f) => /RouteAccess\.(ts|js)$/.test(f) && !f.endsWith('.d.ts'))
+    .filter((f) => new RegExp(`${suffix}\\.(ts|js)$`).test(f) && !f.endsWith('.d.ts'))
     .sort();
-  const merged: Record<string, RouteAccess> = {};
+  const merged: Record<string, T> = {};
   for (const f of files) {
-    const mod = (await import(pathToFileURL(path.join(SRC, f)).href)) as Record<string, RouteAccessTable>;
+    const mod = (await import(pathToFileURL(path.join(SRC, f)).href)) as Record<string, Record<string, T>>;
     for (const table of Object.values(mod)) Object.assign(merged, table);
   }
   return merged;
+}
+
+/** Every 'METHOD /api/path' → access, from all *RouteAccess.ts tables (as the role matrix test reads them). */
+export function loadRouteAccess(): Promise<Record<string, RouteAccess>> {
+  return loadTables<RouteAccessTable[string]>('RouteAccess');
+}
+
+/** Every 'METHOD /api/path' → its body schema (null: no body), from all *RouteBodies.ts tables. */
+export function loadRouteBodies(): Promise<Record<string, RouteBodyTable[string]>> {
+  return loadTables<RouteBodyTable[string]>('RouteBodies');
+}
+
+/**
+ * The JSON Schema of a request body, as clients send it (zod input side). A design document is
+ * checked by the engine's parseDesign rather than zod, so its schema is the engine's own.
+ */
+function bodySchema(schema: z.ZodType): Record<string, unknown> {
+  const out = json(schema) as { properties?: Record<string, unknown> };
+  if (out.properties && 'document' in out.properties) {
+    out.properties.document = { $ref: '#/components/schemas/DesignDocument' };
+  }
+  return out;
 }
 
 const summaries: Record<string, string> = {
@@ -76,13 +100,9 @@ const runResponse = ok({
   required: ['run'],
 });
 
-/** Request and response details of the runs routes (other routes are described by access only). */
+/** Response details of the runs routes (request bodies of every route come from the *RouteBodies.ts tables). */
 const runsDetails: Record<string, object> = {
   'POST /api/runs': {
-    requestBody: {
-      required: true,
-      content: { 'application/json': { schema: { $ref: '#/components/schemas/LaunchRun' } } },
-    },
     responses: {
       202: ok(
         { type: 'object', properties: { id: { type: 'string', format: 'uuid' } }, required: ['id'] },
@@ -155,11 +175,13 @@ const runsDetails: Record<string, object> = {
 
 /**
  * The OpenAPI 3.1 document of the whole API: every route in the *RouteAccess.ts tables (which the
- * role matrix test checks against the routes the app registers), with its roles, and full
- * request/response schemas for the runs routes, generated from their zod schemas.
+ * role matrix test checks against the routes the app registers), with its roles, the request body
+ * of every route that takes one (from the *RouteBodies.ts tables: the zod schemas the routes parse
+ * with), and full response schemas for the runs routes.
  */
 export async function buildOpenApi(): Promise<Record<string, unknown>> {
   const access = await loadRouteAccess();
+  const bodies = await loadRouteBodies();
   const paths: Record<string, Record<string, object>> = {};
   for (const route of Object.keys(access).sort()) {
     const [method, pattern] = route.split(' ') as [string, string];
@@ -171,17 +193,47 @@ export async function buildOpenApi(): Promise<Record<string, unknown>> {
       schema: { type: 'string' },
     }));
     const details = (runsDetails[route] ?? {}) as { parameters?: object[]; responses?: object };
+    const body = bodies[route];
     const op = {
       summary: summaries[route] ?? route,
       'x-sigmatail-access': a === 'public' || a === 'signedIn' ? a : [...a],
       security: a === 'public' ? [] : [{ session: [] }],
+      ...(body
+        ? {
+            requestBody: {
+              // A schema that accepts undefined (e.g. logout's) makes the body optional.
+              required: !body.safeParse(undefined).success,
+              content: {
+                'application/json': {
+                  schema:
+                    route === 'POST /api/runs'
+                      ? { $ref: '#/components/schemas/LaunchRun' }
+                      : bodySchema(body),
+                },
+              },
+            },
+          }
+        : {}),
       ...details,
       parameters: [...params, ...(details.parameters ?? [])],
       responses: {
         ...(details.responses ?? { 200: ok() }),
         400: errorResponse('Invalid input; error.field names the field'),
+        ...(body
+          ? {
+              413: errorResponse('Body over the 2 MB limit'),
+              415: errorResponse('Body not application/json'),
+            }
+          : {}),
+        ...(method !== 'GET' ? { 403: errorResponse('Cross-site request refused (Origin)') } : {}),
         ...(a === 'public' ? {} : { 401: errorResponse('Not signed in') }),
-        ...(Array.isArray(a) ? { 403: errorResponse('Role not allowed') } : {}),
+        ...(Array.isArray(a)
+          ? {
+              403: errorResponse(
+                method !== 'GET' ? 'Role not allowed, or cross-site request refused' : 'Role not allowed',
+              ),
+            }
+          : {}),
       },
     };
     const key = pattern.replace(/:([A-Za-z]+)/g, '{$1}');
@@ -207,6 +259,9 @@ export async function buildOpenApi(): Promise<Record<string, unknown>> {
               properties: {
                 message: { type: 'string' },
                 field: { type: 'string' },
+                position: { type: 'integer', description: 'Malformed JSON: 0-based offset where it breaks' },
+                line: { type: 'integer' },
+                column: { type: 'integer' },
                 issues: {
                   type: 'array',
                   items: {
@@ -221,6 +276,7 @@ export async function buildOpenApi(): Promise<Record<string, unknown>> {
           required: ['error'],
         },
         LaunchRun: json(launchRunBody),
+        DesignDocument: designJsonSchema(),
         Run: z.toJSONSchema(runView),
       },
     },
