@@ -47,3 +47,4 @@ export * from './lots/summarizeLot.js';
 export * from './lots/sectionMultipliers.js';
 export * from './guardband/testLimitRates.js';
 export * from './guardband/suggestGuardBand.js';
+export * from './lots/lotLimits.js';

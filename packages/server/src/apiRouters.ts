@@ -7,7 +7,9 @@ import { createWorkspaceSwitchRouter } from './auth/workspaceSwitchRouter.js';
 import { createDesignsRouter } from './designs/designsRouter.js';
 import { createDevInboxRouter } from './devInbox/devInboxRouter.js';
 import { createHealthRouter } from './http/healthRouter.js';
+import { createLotsRouter } from './lots/lotsRouter.js';
 import { createRunsRouter } from './runs/runsRouter.js';
+import { createTestLimitsRouter } from './testLimits/testLimitsRouter.js';
 import { createAcceptInviteRouter } from './users/acceptInviteRouter.js';
 import { createInvitesRouter } from './users/invitesRouter.js';
 import { createUsersRouter } from './users/usersRouter.js';
@@ -31,5 +33,7 @@ export function apiRouters(deps: AppDeps): Router[] {
     createAuditRouter(deps),
     createDesignsRouter(deps),
     createRunsRouter(deps),
+    createLotsRouter(deps),
+    createTestLimitsRouter(deps),
   ];
 }
