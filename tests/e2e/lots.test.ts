@@ -62,6 +62,15 @@ describe('production lead: lots and test limits', () => {
     await page.getByText('Looks binned:').waitFor();
     await screenshot(page, '23-lot-binned');
 
+    // The demo tube lot goes on the design's tubes, whole envelopes at a time.
+    await page.getByRole('link', { name: '← Lots' }).click();
+    await page.getByRole('link', { name: '12AX7 incoming, box 3' }).click();
+    await page.getByText('Section-to-section correlation').waitFor();
+    await page.getByLabel('Design', { exact: true }).selectOption({ label: DESIGN });
+    await page.getByRole('button', { name: 'Apply as a new revision' }).click();
+    await page.getByText(/Saved as\s+revision 3/).waitFor();
+    await screenshot(page, '23a-tube-lot');
+
     // Guard band calculator: a field error first, then the answer.
     await page.getByRole('link', { name: '← Lots' }).click();
     await page.getByRole('link', { name: /Test limits and guard bands/ }).click();

@@ -23,11 +23,12 @@ export function presentLot(row: LotRow) {
     });
   } else {
     const { sections, multipliers } = data as TubeLotData;
-    const both = (i: number) => sections.flatMap((s) => [s[i]!, s[i + 2]!]);
+    const both = (i: number, scale = 1) => sections.flatMap((s) => [s[i]! * scale, s[i + 2]! * scale]);
     if (row.quantity === 'ia-gm') {
       quantities.push(
-        { key: 'ia', label: 'Ia, both sections', unit: 'mA', summary: summarizeLot(both(0)) },
-        { key: 'gm', label: 'gm, both sections', unit: 'mA/V', summary: summarizeLot(both(1)) },
+        // Stored as measured (mA, mA/V); shown in A and S so SI prefixes read naturally.
+        { key: 'ia', label: 'Ia, both sections', unit: 'A', summary: summarizeLot(both(0, 1e-3)) },
+        { key: 'gm', label: 'gm, both sections', unit: 'S', summary: summarizeLot(both(1, 1e-3)) },
         {
           key: 'iaRatio',
           label: 'Ia section 1 / section 2',

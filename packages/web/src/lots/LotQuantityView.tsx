@@ -68,63 +68,73 @@ export function LotQuantityView({
           ))}
         </tr>
       </Table>
-      <ChartFrame title={`${label}: histogram and fits`} fileName={`lot-${label.replace(/\W+/g, '-')}`}>
-        {(ref) => (
-          <LotHistogram
-            svgRef={ref}
-            lo={s.histogram.lo}
-            binWidth={s.histogram.width}
-            counts={s.histogram.counts}
-            curves={s.fits.map(curveOf)}
-            unit={unit}
-            label={`Histogram of ${label} with fitted curves`}
-          />
-        )}
-      </ChartFrame>
-      {s.fits.length > 0 ? (
-        <Table
-          className="w-full text-sm"
-          head={
-            <>
-              <th className="py-1 pr-3">Fit</th>
-              <th className="py-1 pr-3">Location, scale</th>
-              <th className="py-1 pr-3">Anderson–Darling A*²</th>
-              <th className="py-1 pr-3">p-value</th>
-              <th className="py-1 pr-3">KS distance</th>
-              <th className="py-1">Verdict (5 %)</th>
-            </>
-          }
-        >
-          {s.fits.map((f) => (
-            <tr key={f.dist} className="border-b border-rule/60 last:border-0" data-testid={`fit-${f.dist}`}>
-              <td className="py-1 pr-3">{f.dist}</td>
-              <td className="num py-1 pr-3">
-                {f.dist === 'normal'
-                  ? `μ ${fmt(f.mu)}, σ ${fmt(f.sigma)}`
-                  : `median ${fmt(Math.exp(f.mu))}, σ(ln) ${formatSig(f.sigma, 3)}`}
-              </td>
-              <td className="num py-1 pr-3">{formatSig(f.ad.adjusted, 3)}</td>
-              <td className="num py-1 pr-3">{f.ad.pValue < 0.001 ? '< 0.001' : formatSig(f.ad.pValue, 2)}</td>
-              <td className="num py-1 pr-3">{formatSig(f.ks, 3)}</td>
-              <td className={`py-1 ${f.plausible ? 'text-moss' : 'text-brick'}`}>
-                {f.plausible ? 'fits' : 'rejected'}
-              </td>
-            </tr>
-          ))}
-        </Table>
-      ) : (
-        <p className="text-sm text-dim">Too few distinct values for a fit test (needs 8).</p>
-      )}
-      {s.binned && (
-        <p
-          data-testid="binned-verdict"
-          className={`rounded-md p-2 text-sm ${s.binned.looksBinned ? 'bg-brass-soft text-ink' : 'text-dim'}`}
-        >
-          <strong>{s.binned.looksBinned ? 'Looks binned: ' : 'Not binned: '}</strong>
-          {s.binned.reason}
-          {s.binned.looksBinned && ` (empty from ${fmt(s.binned.gap.low)} to ${fmt(s.binned.gap.high)}).`}
-        </p>
-      )}
+      <div className="grid items-start gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+        <ChartFrame title={`${label}: histogram and fits`} fileName={`lot-${label.replace(/\W+/g, '-')}`}>
+          {(ref) => (
+            <LotHistogram
+              svgRef={ref}
+              lo={s.histogram.lo}
+              binWidth={s.histogram.width}
+              counts={s.histogram.counts}
+              curves={s.fits.map(curveOf)}
+              unit={unit}
+              label={`Histogram of ${label} with fitted curves`}
+            />
+          )}
+        </ChartFrame>
+        <div className="space-y-3">
+          {s.fits.length > 0 ? (
+            <Table
+              className="w-full text-sm"
+              head={
+                <>
+                  <th className="py-1 pr-3">Fit</th>
+                  <th className="py-1 pr-3">Location, scale</th>
+                  <th className="py-1 pr-3">Anderson–Darling A*²</th>
+                  <th className="py-1 pr-3">p-value</th>
+                  <th className="py-1 pr-3">KS distance</th>
+                  <th className="py-1">Verdict (5 %)</th>
+                </>
+              }
+            >
+              {s.fits.map((f) => (
+                <tr
+                  key={f.dist}
+                  className="border-b border-rule/60 last:border-0"
+                  data-testid={`fit-${f.dist}`}
+                >
+                  <td className="py-1 pr-3">{f.dist}</td>
+                  <td className="num py-1 pr-3">
+                    {f.dist === 'normal'
+                      ? `μ ${fmt(f.mu)}, σ ${fmt(f.sigma)}`
+                      : `median ${fmt(Math.exp(f.mu))}, σ(ln) ${formatSig(f.sigma, 3)}`}
+                  </td>
+                  <td className="num py-1 pr-3">{formatSig(f.ad.adjusted, 3)}</td>
+                  <td className="num py-1 pr-3">
+                    {f.ad.pValue < 0.001 ? '< 0.001' : formatSig(f.ad.pValue, 2)}
+                  </td>
+                  <td className="num py-1 pr-3">{formatSig(f.ks, 3)}</td>
+                  <td className={`py-1 ${f.plausible ? 'text-moss' : 'text-brick'}`}>
+                    {f.plausible ? 'fits' : 'rejected'}
+                  </td>
+                </tr>
+              ))}
+            </Table>
+          ) : (
+            <p className="text-sm text-dim">Too few distinct values for a fit test (needs 8).</p>
+          )}
+          {s.binned && (
+            <p
+              data-testid="binned-verdict"
+              className={`rounded-md p-2 text-sm ${s.binned.looksBinned ? 'bg-brass-soft text-ink' : 'text-dim'}`}
+            >
+              <strong>{s.binned.looksBinned ? 'Looks binned: ' : 'Not binned: '}</strong>
+              {s.binned.reason}
+              {s.binned.looksBinned && ` (empty from ${fmt(s.binned.gap.low)} to ${fmt(s.binned.gap.high)}).`}
+            </p>
+          )}
+        </div>
+      </div>
     </section>
   );
 }

@@ -146,15 +146,21 @@ export function TestLimitsPage() {
                   </>
                 }
               >
-                {([['Limits', (r: typeof a.test) => `${r.low ?? '−∞'} … ${r.high ?? '∞'}`]] as const).map(
-                  ([k, fn]) => (
-                    <tr key={k}>
-                      <td className="py-1 pr-3 text-dim">{k}</td>
-                      <td className="num py-1 pr-3">{fn(a.test)}</td>
-                      {a.suggestion && <td className="num py-1">{fn(a.suggestion.test)}</td>}
-                    </tr>
-                  ),
-                )}
+                {(
+                  [
+                    [
+                      'Limits',
+                      (r: typeof a.test) =>
+                        `${r.low === undefined ? '−∞' : formatSig(r.low, 5)} … ${r.high === undefined ? '∞' : formatSig(r.high, 5)}`,
+                    ],
+                  ] as const
+                ).map(([k, fn]) => (
+                  <tr key={k}>
+                    <td className="py-1 pr-3 text-dim">{k}</td>
+                    <td className="num py-1 pr-3">{fn(a.test)}</td>
+                    {a.suggestion && <td className="num py-1">{fn(a.suggestion.test)}</td>}
+                  </tr>
+                ))}
                 {(
                   [
                     ['False accept', 'falseAccept'],
