@@ -38,7 +38,7 @@ describe('production lead: lots and test limits', () => {
     await screenshot(page, '21-lot-row-errors');
 
     // A good file: stored, and its page shows the statistics.
-    const values = Array.from({ length: 120 }, (_, i) => (470 * (1 + 0.004 * Math.sin(i * 2.3))).toFixed(2));
+    const values = Array.from({ length: 120 }, (_, i) => (1000 * (1 + 0.004 * Math.sin(i * 2.3))).toFixed(1));
     await page.getByLabel('CSV file').setInputFiles({
       name: 'reel15.csv',
       mimeType: 'text/csv',
@@ -70,9 +70,14 @@ describe('production lead: lots and test limits', () => {
     await page.getByRole('button', { name: 'Apply as a new revision' }).click();
     await page.getByText(/Saved as\s+revision 3/).waitFor();
     await screenshot(page, '23a-tube-lot');
+    await page.getByRole('link', { name: 'revision 3' }).click();
+    await page.getByTestId('tube-lot').waitFor();
+    await expect(page.getByTestId('tube-lot').textContent()).resolves.toContain('12AX7 incoming, box 3');
+    await page.getByText('lot: Rk reel 15 (120)').waitFor();
+    await screenshot(page, '23b-revision-with-lots');
+    await page.getByRole('link', { name: 'Lots', exact: true }).click();
 
     // Guard band calculator: a field error first, then the answer.
-    await page.getByRole('link', { name: '← Lots' }).click();
     await page.getByRole('link', { name: /Test limits and guard bands/ }).click();
     await page.getByLabel('Process mean').fill('100');
     await page.getByLabel('Process sd').fill('-1');

@@ -1,4 +1,5 @@
 import type { ResistorLotData, TubeLotData } from '@sigmatail/db';
+import { formatEngineering, parseValue } from '@sigmatail/engine';
 import { HttpError } from '../http/httpError.js';
 import type { LotRow } from './lotsRepo.js';
 
@@ -28,7 +29,11 @@ type Doc = Record<string, unknown> & {
  * name ride along as an annotation; the document version is unchanged (the fields are optional).
  * Throws 400 naming `target` when the lot does not fit that place of the design.
  */
-export function applyLotToDocument(document: unknown, lot: LotRow, target: LotTarget): Doc {
+export function applyLotToDocument(
+  document: unknown,
+  lot: LotRow,
+  target: LotTarget,
+): { document: Doc; warnings: string[] } {
   const doc = structuredClone(document) as Doc;
   const ref = { id: lot.id, name: lot.name };
   if (lot.kind === 'resistor') {
@@ -36,8 +41,9 @@ export function applyLotToDocument(document: unknown, lot: LotRow, target: LotTa
       throw new HttpError(400, 'target: a resistor lot goes on a part, not the tubes', 'target');
     const part = doc.parts?.[target];
     if (!part) throw new HttpError(400, `target: this design has no part ${target}`, 'target');
-    part.spread = { kind: 'empirical', values: (lot.data as ResistorLotData).values, lot: ref };
-    return doc;
+    const values = (lot.data as ResistorLotData).values;
+    part.spread = { kind: 'empirical', values, lot: ref };
+    return { document: doc, warnings: nominalWarning(part.value, values, target) };
   }
   if (target !== 'tube')
     throw new HttpError(400, 'target: a tube lot goes on the tubes, not a part', 'target');
@@ -49,5 +55,22 @@ export function applyLotToDocument(document: unknown, lot: LotRow, target: LotTa
     );
   }
   doc.tube.spread = { ...doc.tube.spread, lot: { ...ref, tubes: (lot.data as TubeLotData).multipliers } };
-  return doc;
+  return { document: doc, warnings: [] };
+}
+
+/**
+ * The lot replaces the part's value entirely (the empirical spread ignores the nominal), so a lot
+ * whose median is far from the part's nominal is most likely the wrong lot: say so.
+ */
+function nominalWarning(value: unknown, values: number[], target: string): string[] {
+  const parsed =
+    typeof value === 'number' ? { ok: true as const, value } : parseValue(String(value), 'resistance');
+  if (!parsed.ok) return [];
+  const sorted = [...values].sort((a, b) => a - b);
+  const median = sorted[Math.floor(sorted.length / 2)]!;
+  const off = median / parsed.value - 1;
+  if (Math.abs(off) <= 0.2) return [];
+  return [
+    `the lot's median ${formatEngineering(median, 'resistance')} is ${Math.round(Math.abs(off) * 100)} % ${off > 0 ? 'above' : 'below'} ${target}'s nominal ${formatEngineering(parsed.value, 'resistance')}; runs now use the lot's values`,
+  ];
 }

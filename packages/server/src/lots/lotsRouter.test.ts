@@ -206,6 +206,11 @@ describe('lots API', () => {
     expect(bad.body.error.field).toBe('target');
     const res = await production.post(`/api/lots/${lot.id}/apply`, { designId, target: 'rk' });
     expect(res.status).toBe(201);
+    expect(res.body.warnings).toEqual([]);
+    // The wrong part: the lot is 470 Ω, Rt is 10 kΩ. Stored (the user chose it), with a warning.
+    const wrong = await production.post(`/api/lots/${lot.id}/apply`, { designId, target: 'rt' });
+    expect(wrong.status).toBe(201);
+    expect(wrong.body.warnings[0]).toMatch(/95 % below rt's nominal 10 kΩ/);
     const doc = (await production.get(`/api/designs/${designId}/revisions/${res.body.rev}`)).body.revision
       .document;
     expect(doc.parts.rk.spread).toMatchObject({ kind: 'empirical', lot: { id: lot.id, name: 'Rk lot' } });
@@ -228,7 +233,7 @@ describe('lots API', () => {
       .select('action')
       .where('target', '=', lot.id)
       .execute();
-    expect(audit.map((a) => a.action).sort()).toEqual(['lot.apply', 'lot.upload']);
+    expect(audit.map((a) => a.action).sort()).toEqual(['lot.apply', 'lot.apply', 'lot.upload']);
   });
 
   it('deletes a lot; designs keep their embedded values', async () => {

@@ -114,7 +114,7 @@ export function createLotsRouter({ db }: AppDeps): Router {
     if (design.archived_at)
       throw new HttpError(409, 'this design is archived; restore it before saving a revision');
     const latest = (await findRevision(db, design.id, design.latest_rev))!;
-    const document = applyLotToDocument(latest.document, lot, body.target);
+    const { document, warnings } = applyLotToDocument(latest.document, lot, body.target);
     const valid = validateDesignDocument(document);
     const rev = await insertRevision(db, {
       designId: design.id,
@@ -130,7 +130,7 @@ export function createLotsRouter({ db }: AppDeps): Router {
       target: lot.id,
       detail: { designId: design.id, rev, target: body.target },
     });
-    res.status(201).json({ designId: design.id, rev });
+    res.status(201).json({ designId: design.id, rev, warnings });
   });
 
   return router;

@@ -89,7 +89,10 @@ export const lotsApi = {
   upload,
   remove: (id: string) => request<void>('DELETE', `/lots/${enc(id)}`),
   apply: (id: string, designId: string, target: string) =>
-    request<{ designId: string; rev: number }>('POST', `/lots/${enc(id)}/apply`, { designId, target }),
+    request<{ designId: string; rev: number; warnings: string[] }>('POST', `/lots/${enc(id)}/apply`, {
+      designId,
+      target,
+    }),
   testLimits: (body: TestLimitsRequest) => request<TestLimitsAnswer>('POST', '/test-limits', body),
 };
 

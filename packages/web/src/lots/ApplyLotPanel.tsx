@@ -96,6 +96,11 @@ export function ApplyLotPanel({ lot }: { lot: LotDetail }) {
           . Runs of it sample this lot.
         </p>
       )}
+      {apply.data?.warnings.map((w) => (
+        <p key={w} className="rounded-md bg-brass-soft p-2 text-sm text-ink" role="alert">
+          Check: {w}.
+        </p>
+      ))}
     </form>
   );
 }
