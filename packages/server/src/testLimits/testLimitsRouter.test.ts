@@ -1,17 +1,60 @@
 import { testLimitRates } from '@sigmatail/engine';
 import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { buildUser } from '../testing/buildUser.js';
+import { buildUser, type BuiltUser } from '../testing/buildUser.js';
 import { signIn } from '../testing/signIn.js';
 import { startTestApp, type TestApp } from '../testing/startTestApp.js';
 import type { TestClient } from '../testing/testClient.js';
 
 let app: TestApp;
 let viewer: TestClient;
+let viewerUser: BuiltUser;
 beforeAll(async () => {
   app = await startTestApp();
-  viewer = await signIn(app, await buildUser(app.deps.db, { role: 'viewer' }));
+  viewerUser = await buildUser(app.deps.db, { role: 'viewer' });
+  viewer = await signIn(app, viewerUser);
 });
+
+/** A finished run in the user's workspace whose stored results give balanceDb mean 0.12 dB, sd 0.2 dB. */
+async function storedRun(u: BuiltUser): Promise<string> {
+  const db = app.deps.db;
+  const design = await db
+    .insertInto('designs')
+    .values({ workspace_id: u.workspaceId, name: 'Stored run stage', created_by: u.id, latest_rev: 1 })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  const run = await db
+    .insertInto('runs')
+    .values({
+      workspace_id: u.workspaceId,
+      design_id: design.id,
+      revision: 1,
+      created_by: u.id,
+      samples: 1000,
+      seed: 's',
+      plan: 'random',
+      chunk_size: 1000,
+      analyses: '{}',
+      design: '{}',
+      engine_version: 'test',
+      chunk_total: 1,
+      status: 'done',
+    })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  await db
+    .insertInto('run_results')
+    .values({
+      run_id: run.id,
+      results: JSON.stringify({
+        metrics: { balanceDb: { mean: 0.12, sd: 0.2 }, gainDiff: { mean: 1, sd: null } },
+      }),
+      valid_count: 1000,
+      joint_yield: 1,
+    })
+    .execute();
+  return run.id;
+}
 afterAll(() => app?.close());
 
 const base = {
@@ -55,6 +98,25 @@ describe('POST /api/test-limits', () => {
       expect(res.status, JSON.stringify(body)).toBe(400);
       expect(res.body.error.field, JSON.stringify(body)).toMatch(new RegExp(`^${field.replace('.', '\\.')}`));
     }
+  });
+
+  it("takes the process from a stored run's metric, only in the run's own workspace", async () => {
+    const runId = await storedRun(viewerUser);
+    const body = { measurementSd: 0.05, spec: { low: -0.5, high: 0.5 } };
+    const res = await viewer.post('/api/test-limits', { ...body, process: { runId, metric: 'balanceDb' } });
+    expect(res.status).toBe(200);
+    expect(res.body.process).toEqual({ mean: 0.12, sd: 0.2, runId, metric: 'balanceDb' });
+    const want = testLimitRates({ ...body, process: { mean: 0.12, sd: 0.2 }, test: body.spec });
+    expect(res.body.rates.falseReject).toBeCloseTo(want.falseReject, 15);
+    const noSpread = await viewer.post('/api/test-limits', {
+      ...body,
+      process: { runId, metric: 'gainDiff' },
+    });
+    expect(noSpread.status).toBe(400);
+    expect(noSpread.body.error.field).toBe('process.metric');
+    const other = await signIn(app, await buildUser(app.deps.db, { role: 'admin' }));
+    const guess = await other.post('/api/test-limits', { ...body, process: { runId, metric: 'balanceDb' } });
+    expect(guess.status).toBe(404);
   });
 
   it('answers 404 naming process.runId for a run of no workspace of the user', async () => {
