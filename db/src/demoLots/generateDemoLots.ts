@@ -1,7 +1,7 @@
 // Writes the demo workshop's invented lots (run once; the CSVs are committed):
 //   node_modules/.bin/tsx --conditions=@sigmatail/source db/src/demoLots/generateDemoLots.ts
 import { writeFileSync } from 'node:fs';
-import { createStream, normalQuantile } from '@sigmatail/engine';
+import { TUBE_CATALOG, createStream, korenPointInto, normalQuantile } from '@sigmatail/engine';
 
 const dir = new URL('./', import.meta.url);
 const rng = createStream('fenwick-demo-lots');
@@ -19,16 +19,21 @@ while (rt.length < 300) {
 }
 writeFileSync(new URL('rt-10k-carbon-binned.csv', dir), 'value\n' + rt.join('\n') + '\n');
 
-// 12AX7 tubes at 250 V / −2 V: Ia (mA) and gm (mA/V) per section. One envelope's sections share
-// most of their spread (same cathode coating batch), each adds its own.
+// 12AX7 tubes at 250 V / −2 V: Ia (mA) and gm (mA/V) per section, as the catalog's model gives them
+// for sections whose current scale and mu are spread around the model's (so the lot centres on the
+// model the designs use). One envelope's sections share most of their spread (same cathode
+// coating batch), each adds its own.
+const model = TUBE_CATALOG['12AX7'].model;
+const pt = { ia: 0, gm: 0, ga: 0 };
 const tubes: string[] = [];
 for (let i = 0; i < 200; i++) {
   const envelope = 0.1 * z();
   const row: string[] = [];
   for (let s = 0; s < 2; s++) {
     const perv = Math.exp(envelope + 0.04 * z());
-    const muShift = 1 + 0.02 * z();
-    row.push((1.2 * perv).toFixed(4), (1.6 * Math.pow(perv, 0.9) * muShift).toFixed(4));
+    const mu = Math.exp(0.02 * z());
+    korenPointInto(model, 250, -2, perv, mu, pt);
+    row.push((pt.ia * 1e3).toFixed(4), (pt.gm * 1e3).toFixed(4));
   }
   tubes.push(row.join(','));
 }
