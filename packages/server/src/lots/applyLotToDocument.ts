@@ -54,8 +54,30 @@ export function applyLotToDocument(
       'target',
     );
   }
-  doc.tube.spread = { ...doc.tube.spread, lot: { ...ref, tubes: (lot.data as TubeLotData).multipliers } };
-  return { document: doc, warnings: [] };
+  const tubes = (lot.data as TubeLotData).multipliers;
+  doc.tube.spread = { ...doc.tube.spread, lot: { ...ref, tubes } };
+  return { document: doc, warnings: tubeWarnings(tubes) };
+}
+
+/** Median multipliers far from 1: the lot's tubes are not what the catalog model describes. */
+function tubeWarnings(tubes: number[][]): string[] {
+  const median = (c: number) => {
+    const v = tubes.flatMap((t) => [t[c]!, t[c + 1]!]).sort((a, b) => a - b);
+    return v[Math.floor(v.length / 2)]!;
+  };
+  const out: string[] = [];
+  for (const [c, what] of [
+    [0, 'current scale (perveance)'],
+    [2, 'mu'],
+  ] as const) {
+    const off = median(c) - 1;
+    if (Math.abs(off) > 0.25) {
+      out.push(
+        `the lot's median ${what} is ${Math.round(Math.abs(off) * 100)} % ${off > 0 ? 'above' : 'below'} the catalog model's; runs now use the lot's tubes`,
+      );
+    }
+  }
+  return out;
 }
 
 /**

@@ -134,6 +134,8 @@ describe('lots API', () => {
     // Apply to the design's tubes: a new revision carrying the whole tubes.
     const applied = await production.post(`/api/lots/${ok.body.lot.id}/apply`, { designId, target: 'tube' });
     expect(applied.status).toBe(201);
+    // Datasheet-typical sections sit far from where the catalog model runs at 250 V / −2 V.
+    expect(applied.body.warnings.join(' ')).toMatch(/catalog model's/);
     const rev = await production.get(`/api/designs/${designId}/revisions/${applied.body.rev}`);
     expect(rev.body.revision.document.tube.spread.lot.tubes).toHaveLength(40);
     expect(rev.body.revision.document.version).toBe(1);
