@@ -123,12 +123,19 @@ export function createLotsRouter({ db }: AppDeps): Router {
       document,
       message: body.message ?? `Lot "${lot.name}" applied to ${body.target}`,
     });
+    const who = { workspaceId: req.user!.workspaceId, userId: req.user!.id };
     await recordAudit(db, {
-      workspaceId: req.user!.workspaceId,
-      userId: req.user!.id,
+      ...who,
       action: 'lot.apply',
       target: lot.id,
       detail: { designId: design.id, rev, target: body.target },
+    });
+    // The design's own trail shows the revision too, as a save through the designs API would.
+    await recordAudit(db, {
+      ...who,
+      action: 'design.revise',
+      target: design.id,
+      detail: { rev, lot: lot.id },
     });
     res.status(201).json({ designId: design.id, rev, warnings });
   });
