@@ -2,7 +2,7 @@ import jStat from 'jstat';
 import seedrandom from 'seedrandom';
 import { describe, expect, it } from 'vitest';
 import { buildTestDesign } from '../run/buildTestDesign.js';
-import { runChunk, sampleRows } from '../run/runApi.js';
+import { mergeChunks, runChunk, runExtras, sampleRows } from '../run/runApi.js';
 import type { RunPlan } from '../run/runPlan.js';
 
 const plan: RunPlan = { samples: 20_000, seed: 'lot-run', plan: 'random', chunkSize: 20_000 };
@@ -93,5 +93,37 @@ describe('a lot used as a spread', () => {
     const p2 = column(rows, 'perv2');
     expect(p2.includes(1.4)).toBe(false);
     expect(p2.includes(1.02) && p2.includes(0.91)).toBe(true);
+  });
+
+  it('runs with every analysis on (influence, variance indices, worst case) and a one-tube lot', () => {
+    const design = buildTestDesign();
+    design.tube.spread = {
+      perveanceSd: 10,
+      muSd: 3,
+      sectionCorrelation: 0.5,
+      lot: {
+        name: 'tubes',
+        tubes: [
+          [1.05, 0.97, 1.01, 0.99],
+          [0.92, 0.95, 1.02, 1.0],
+          [1.1, 1.12, 0.98, 0.97],
+        ],
+      },
+    };
+    design.parts.rk = {
+      value: 470,
+      tolerance: 5,
+      spread: { kind: 'empirical', values: [465, 468, 470, 473, 476] },
+    };
+    const p: RunPlan = { samples: 4000, seed: 'all', plan: 'sobol', chunkSize: 2000 };
+    const chunks = [runChunk(design, p, 0), runChunk(design, p, 1)];
+    const results = mergeChunks(design, p, chunks, runExtras(design, p));
+    expect(results.metrics.balanceDb!.count).toBe(4000);
+    expect(Number.isFinite(results.metrics.balanceDb!.sd)).toBe(true);
+    expect(results.worstCase).toBeDefined();
+
+    design.tube.spread = { ...design.tube.spread, lot: { name: 'one', tubes: [[1.05, 0.97, 1.01, 0.99]] } };
+    const one = sampleRows(design, { ...p, plan: 'random', samples: 100, chunkSize: 100 }, 0);
+    expect(new Set(column(one, 'perv2'))).toEqual(new Set([0.97]));
   });
 });
