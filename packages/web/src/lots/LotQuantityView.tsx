@@ -111,7 +111,7 @@ export function LotQuantityView({
                   </td>
                   <td className="num py-1 pr-3">{formatSig(f.ad.adjusted, 3)}</td>
                   <td className="num py-1 pr-3">
-                    {f.ad.pValue < 0.001 ? '< 0.001' : formatSig(f.ad.pValue, 2)}
+                    {f.ad.pValue < 0.001 ? '<\u00a00.001' : formatSig(f.ad.pValue, 2)}
                   </td>
                   <td className="num py-1 pr-3">{formatSig(f.ks, 3)}</td>
                   <td className={`py-1 ${f.plausible ? 'text-moss' : 'text-brick'}`}>
