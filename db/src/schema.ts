@@ -200,6 +200,35 @@ export type RunResultRow = Selectable<RunResultsTable>;
 
 // ---- end of runs tables ----
 
+// ---- lots tables ----
+
+/** Per tube: [a1, b1, a2, b2] as measured (Ia mA and gm mA/V, or mu and rp Ω) and the model multipliers [perv1, perv2, mu1, mu2]. */
+export type TubeLotData = { sections: number[][]; multipliers: number[][] };
+/** Resistor lot: one value per part, ohms. */
+export type ResistorLotData = { values: number[] };
+
+/** A measured lot uploaded as CSV (per workspace). */
+export interface LotsTable {
+  id: Generated<string>;
+  workspace_id: string;
+  name: string;
+  kind: 'resistor' | 'tube';
+  /** What each row holds: 'ohms' (resistor), 'ia-gm' or 'mu-rp' (tube sections). */
+  quantity: 'ohms' | 'ia-gm' | 'mu-rp';
+  tube_type: string | null;
+  /** Tube lots: the test point the sections were measured at (volts). */
+  test_point: ColumnType<{ va: number; vg: number } | null, string | null | undefined, string | null>;
+  file_name: string | null;
+  count: number;
+  data: Json<ResistorLotData | TubeLotData>;
+  created_by: string;
+  created_at: CreatedAt;
+}
+
+export type Lot = Selectable<LotsTable>;
+
+// ---- end of lots tables ----
+
 /** Every table of the application database. */
 export interface Database {
   workspaces: WorkspacesTable;
@@ -217,6 +246,8 @@ export interface Database {
   runs: RunsTable;
   run_chunks: RunChunksTable;
   run_results: RunResultsTable;
+  // lots tables below
+  lots: LotsTable;
 }
 
 export type Workspace = Selectable<WorkspacesTable>;

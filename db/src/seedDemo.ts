@@ -1,6 +1,7 @@
 import bcrypt from 'bcryptjs';
 import { sql, type Kysely } from 'kysely';
 import { DEMO_DESIGNS } from './demoDesigns.js';
+import { demoLots } from './demoLots/demoLots.js';
 import { engineExampleDesigns } from './engineExampleDesigns.js';
 import {
   DEFAULT_WORKSPACE_SETTINGS,
@@ -11,8 +12,8 @@ import {
 import type { Database } from './schema.js';
 
 /**
- * Creates the demo workshop, its four users (one per role) and its demo designs (our own plus the
- * engine's valid examples). Idempotent: rows
+ * Creates the demo workshop, its four users (one per role), its demo designs (our own plus the
+ * engine's valid examples) and its demo lots. Idempotent: rows
  * that exist already (matched by workspace name, email, design name) are left as they are, so it
  * is safe to run on every start and never overwrites a password or design someone changed.
  */
@@ -68,6 +69,26 @@ export async function seedDemo(db: Kysely<Database>): Promise<{ workspaceId: str
           document: JSON.stringify(doc),
           message: 'Demo design',
           created_by: author,
+        })
+        .execute();
+    }
+    // Demo lots, matched by name like the designs.
+    for (const lot of demoLots()) {
+      const found = await tx
+        .selectFrom('lots')
+        .select('id')
+        .where('workspace_id', '=', ws.id)
+        .where('name', '=', lot.name)
+        .executeTakeFirst();
+      if (found) continue;
+      await tx
+        .insertInto('lots')
+        .values({
+          ...lot,
+          workspace_id: ws.id,
+          created_by: userIds[2] ?? author,
+          data: JSON.stringify(lot.data),
+          test_point: lot.test_point ? JSON.stringify(lot.test_point) : null,
         })
         .execute();
     }

@@ -8,7 +8,9 @@ import { createDesignsRouter } from './designs/designsRouter.js';
 import { createDevInboxRouter } from './devInbox/devInboxRouter.js';
 import { createHealthRouter } from './http/healthRouter.js';
 import { createReportsRouter } from './reports/reportsRouter.js';
+import { createLotsRouter } from './lots/lotsRouter.js';
 import { createRunsRouter } from './runs/runsRouter.js';
+import { createTestLimitsRouter } from './testLimits/testLimitsRouter.js';
 import { createAcceptInviteRouter } from './users/acceptInviteRouter.js';
 import { createInvitesRouter } from './users/invitesRouter.js';
 import { createUsersRouter } from './users/usersRouter.js';
@@ -33,5 +35,7 @@ export function apiRouters(deps: AppDeps): Router[] {
     createDesignsRouter(deps),
     createRunsRouter(deps),
     createReportsRouter(deps),
+    createLotsRouter(deps),
+    createTestLimitsRouter(deps),
   ];
 }

@@ -6,6 +6,7 @@ import { designQueries } from './api/queries/designQueries.js';
 import { reportQueries } from './api/queries/reportQueries.js';
 import { runQueries } from './api/queries/runQueries.js';
 import { adminQueries } from './api/queries/adminQueries.js';
+import { lotQueries } from './api/lotsApi.js';
 import { AppLayout } from './components/AppLayout.js';
 import { RouteError } from './components/RouteError.js';
 import { SignInPage } from './pages/SignInPage.js';
@@ -26,6 +27,9 @@ const Report = page(() => import('./pages/ReportPage.js'), 'ReportPage');
 const ProductionReport = page(() => import('./pages/ProductionReportPage.js'), 'ProductionReportPage');
 const Compare = page(() => import('./pages/ComparePage.js'), 'ComparePage');
 const Admin = page(() => import('./pages/AdminPage.js'), 'AdminPage');
+const Lots = page(() => import('./pages/LotsPage.js'), 'LotsPage');
+const LotDetail = page(() => import('./pages/LotDetailPage.js'), 'LotDetailPage');
+const TestLimits = page(() => import('./pages/TestLimitsPage.js'), 'TestLimitsPage');
 
 /**
  * Routes. Loaders only warm the query cache (`ensureQueryData`); pages read through `useQuery`, so
@@ -101,6 +105,17 @@ export function createAppRouter(qc: QueryClient) {
           ),
         },
         { path: 'compare', lazy: Compare },
+        {
+          path: 'production/lots',
+          lazy: Lots,
+          loader: async () => (await warm(qc.ensureQueryData(lotQueries.list())), null),
+        },
+        {
+          path: 'production/lots/:id',
+          lazy: LotDetail,
+          loader: async ({ params }) => (await warm(qc.ensureQueryData(lotQueries.detail(params.id!))), null),
+        },
+        { path: 'production/limits', lazy: TestLimits },
         {
           path: 'admin',
           lazy: Admin,

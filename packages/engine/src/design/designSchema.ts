@@ -8,6 +8,17 @@ const finite = () => z.number().refine(Number.isFinite, 'must be a finite number
 const spreadK = finite().positive().max(MAX_SPREAD_K).optional();
 
 /**
+ * Where embedded measured values came from (a stored lot). Informative only: the values are in
+ * the document, so a run never depends on the lot still existing.
+ *
+ * @example lotRefSchema.parse({ id: '5d0c…', name: 'Incoming 100k, March' });
+ */
+export const lotRefSchema = z.object({
+  id: z.string().max(100).optional(),
+  name: z.string().min(1).max(200),
+});
+
+/**
  * A spread (distribution) of a part value around nominal; tolerance = k·σ where it applies.
  *
  * @example
@@ -20,7 +31,11 @@ export const spreadSchema = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('binned'), inner: finite().min(0).lt(100), k: spreadK }),
   z.object({ kind: z.literal('lognormal'), k: spreadK }),
   z.object({ kind: z.literal('fixed') }),
-  z.object({ kind: z.literal('empirical'), values: z.array(finite().positive()).min(1) }),
+  z.object({
+    kind: z.literal('empirical'),
+    values: z.array(finite().positive()).min(1),
+    lot: lotRefSchema.optional(),
+  }),
 ]);
 
 const partValue = z.union([
@@ -47,6 +62,8 @@ export const partSchema = z
     path: ['spread', 'inner'],
   });
 
+const positiveMultiplier = finite().positive().max(100);
+
 /**
  * How the two sections of one envelope vary (percent, 1σ) and how they are paired.
  *
@@ -58,6 +75,19 @@ export const tubeSpreadSchema = z.object({
   muSd: finite().min(0).lt(100),
   sectionCorrelation: finite().min(0).max(1),
   pairing: z.object({ quantity: z.enum(['ia', 'gm', 'mu']), within: finite().positive().lt(100) }).optional(),
+  /**
+   * A measured tube lot: when present each sample draws one whole tube from it (both sections
+   * together, so the section-to-section correlation is the lot's own) and perveanceSd, muSd and
+   * sectionCorrelation are not used. Each row is [perv1, perv2, mu1, mu2], the multipliers of the
+   * model's current scale and mu worked out from the measurements.
+   */
+  lot: lotRefSchema
+    .extend({
+      tubes: z
+        .array(z.tuple([positiveMultiplier, positiveMultiplier, positiveMultiplier, positiveMultiplier]))
+        .min(1),
+    })
+    .optional(),
 });
 
 /**

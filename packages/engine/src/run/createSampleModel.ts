@@ -1,7 +1,20 @@
 import { applyPartSpreadInPlace, partQuantile, partRange, type PartSpread } from '../spread/partSpread.js';
 import { normalQuantile } from '../spread/normalQuantile.js';
-import { fillTubeInPlace, tubeRange, type TubeSpreadModel } from '../spread/tubeSpread.js';
+import { quantileSorted } from '../lots/summarizeLot.js';
+import {
+  fillTubeFromLotInPlace,
+  fillTubeInPlace,
+  tubeRange,
+  type TubeSpreadModel,
+} from '../spread/tubeSpread.js';
 import type { InputRange, Kernel, SampleModel } from './sampleModel.js';
+
+/** A column of one-halves, grown as needed. */
+let halves = new Float64Array(0);
+function halfColumn(n: number): Float64Array {
+  if (halves.length < n) halves = new Float64Array(n).fill(0.5);
+  return halves;
+}
 
 /** Kernel input names the tube spread writes (section multipliers). */
 const TUBE_INPUTS = ['perv1', 'perv2', 'mu1', 'mu2'] as const;
@@ -43,7 +56,26 @@ export function createSampleModel(
   }
   const tubeIdx = tube ? TUBE_INPUTS.map(indexOf) : [];
   const tubeDim = { perv1: -1, perv2: -1, mu1: -1, mu2: -1 };
-  if (tube) {
+  // A measured lot: one draw dimension picks a whole tube (both sections together).
+  let lotDim = -1;
+  if (tube?.lot) {
+    const sorted = tube.lot.sorted;
+    TUBE_INPUTS.forEach((name, c) => {
+      const col = sorted[c];
+      const i = indexOf(name);
+      ranges[i] = {
+        input: name,
+        nominal: 1,
+        low: col[0],
+        high: col[col.length - 1],
+        varied: col[0] !== col[col.length - 1],
+      };
+    });
+    if (tube.lot.count > 1) {
+      lotDim = dims.length;
+      dims.push('tube');
+    }
+  } else if (tube) {
     for (const name of TUBE_INPUTS) {
       const s = name.startsWith('perv') ? tube.sPerv : tube.sMu;
       const i = indexOf(name);
@@ -69,7 +101,16 @@ export function createSampleModel(
     fillInputs(u, n, inputs, redraw, tally) {
       for (const p of partDims) applyPartSpreadInPlace(p.spread, u[p.dim], inputs[p.input], n);
       for (const i of fixedInputs) inputs[i].fill(base[i], 0, n);
-      if (tube) {
+      if (tube?.lot) {
+        const out = {
+          perv1: inputs[tubeIdx[0]],
+          perv2: inputs[tubeIdx[1]],
+          mu1: inputs[tubeIdx[2]],
+          mu2: inputs[tubeIdx[3]],
+        };
+        // A one-tube lot has no draw dimension: every sample gets that tube (u = 0.5).
+        fillTubeFromLotInPlace(tube, lotDim >= 0 ? u[lotDim] : halfColumn(n), n, out, redraw, tally);
+      } else if (tube) {
         const col = (d: number) => (d >= 0 ? u[d] : null);
         fillTubeInPlace(
           tube,
@@ -95,6 +136,7 @@ export function createSampleModel(
       const part = partDims.find((d) => d.input === input);
       if (part) return partQuantile(part.spread, p);
       const t = tubeIdx.indexOf(input);
+      if (tube?.lot && t >= 0) return quantileSorted(tube.lot.sorted[t], p);
       if (tube && t >= 0) return Math.exp((t < 2 ? tube.sPerv : tube.sMu) * normalQuantile(p));
       return base[input];
     },

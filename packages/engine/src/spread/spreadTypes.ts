@@ -9,7 +9,7 @@ export type SpreadSpec =
   | { kind: 'binned'; inner: number; k?: number }
   | { kind: 'lognormal'; k?: number }
   | { kind: 'fixed' }
-  | { kind: 'empirical'; values: number[] };
+  | { kind: 'empirical'; values: number[]; lot?: { id?: string; name: string } };
 
 /** A toleranced part after value resolution: nominal in ohms, tolerance in percent. */
 export type PartSpec = { value: number; tolerance: number; spread: SpreadSpec };
@@ -20,4 +20,6 @@ export type TubeSpreadSpec = {
   muSd: number;
   sectionCorrelation: number;
   pairing?: { quantity: 'ia' | 'gm' | 'mu'; within: number };
+  /** Measured tubes, each [perv1, perv2, mu1, mu2]; drawn whole when present. */
+  lot?: { id?: string; name: string; tubes: [number, number, number, number][] };
 };

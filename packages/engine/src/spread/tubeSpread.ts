@@ -18,6 +18,15 @@ export type TubeSpreadModel = {
   readonly rhoC: number;
   /** Pairing: quantity compared and the allowed relative mismatch (fraction); null = unpaired. */
   readonly pairing: { quantity: 'ia' | 'gm' | 'mu'; within: number } | null;
+  /**
+   * A measured lot drawn whole, or null: `tubes` holds 4 numbers per tube (perv1, perv2, mu1,
+   * mu2); `sorted` each of the four columns ascending (marginal quantiles and ranges).
+   */
+  readonly lot: {
+    readonly count: number;
+    readonly tubes: Float64Array;
+    readonly sorted: readonly Float64Array[];
+  } | null;
 };
 
 /** Counts of the pairing rule's rejection sampling: acceptance rate = samples / draws. */
@@ -43,7 +52,71 @@ export function prepareTubeSpread(spec: TubeSpreadSpec, field = 'tube.spread'): 
     rho,
     rhoC: Math.sqrt(1 - rho * rho),
     pairing: pairing ? { quantity: pairing.quantity, within: pairing.within / 100 } : null,
+    lot: spec.lot ? prepareTubeLot(spec.lot.tubes, field) : null,
   };
+}
+
+function prepareTubeLot(
+  rows: readonly (readonly number[])[],
+  field: string,
+): NonNullable<TubeSpreadModel['lot']> {
+  const count = rows.length;
+  if (count === 0) throw new RangeError(`${field}.lot.tubes must hold at least one tube`);
+  const tubes = new Float64Array(4 * count);
+  rows.forEach((r, i) => {
+    if (r.length !== 4 || !r.every((v) => v > 0 && Number.isFinite(v))) {
+      throw new RangeError(`${field}.lot.tubes.${i} must be four positive multipliers`);
+    }
+    tubes.set(r, 4 * i);
+  });
+  const sorted = [0, 1, 2, 3].map((c) => Float64Array.from(rows, (r) => r[c]).sort());
+  return { count, tubes, sorted };
+}
+
+/**
+ * In place: one whole tube per sample from a measured lot, tube index floor(u·count) (one uniform
+ * column, so a run stays bit-reproducible for a given seed). A pairing rule redraws the index from
+ * `redraw` (one uniform per attempt) until the tube passes, up to MAX_PAIRING_ATTEMPTS.
+ *
+ * @example fillTubeFromLotInPlace(model, u, n, out, redraw, tally)
+ */
+export function fillTubeFromLotInPlace(
+  t: TubeSpreadModel,
+  u: Float64Array,
+  n: number,
+  out: { perv1: Float64Array; perv2: Float64Array; mu1: Float64Array; mu2: Float64Array },
+  redraw: Sfc32 | null,
+  tally: PairingTally,
+): void {
+  const lot = t.lot!;
+  const { count, tubes } = lot;
+  for (let s = 0; s < n; s++) placeTube(tubes, Math.min(count - 1, Math.floor(u[s] * count)), out, s);
+  tally.samples += n;
+  tally.draws += n;
+  if (redraw === null || t.pairing === null) return;
+  for (let s = 0; s < n; s++) {
+    if (pairedAt(t, out.perv1, out.perv2, out.mu1, out.mu2, s)) continue;
+    let ok = false;
+    for (let attempt = 1; attempt < MAX_PAIRING_ATTEMPTS && !ok; attempt++) {
+      tally.draws++;
+      redraw.fillOpen(FOUR, 1);
+      placeTube(tubes, Math.min(count - 1, Math.floor(FOUR[0] * count)), out, s);
+      ok = pairedAt(t, out.perv1, out.perv2, out.mu1, out.mu2, s);
+    }
+    if (!ok) tally.failures++;
+  }
+}
+
+function placeTube(
+  tubes: Float64Array,
+  i: number,
+  out: { perv1: Float64Array; perv2: Float64Array; mu1: Float64Array; mu2: Float64Array },
+  s: number,
+): void {
+  out.perv1[s] = tubes[4 * i];
+  out.perv2[s] = tubes[4 * i + 1];
+  out.mu1[s] = tubes[4 * i + 2];
+  out.mu2[s] = tubes[4 * i + 3];
 }
 
 /**

@@ -14,6 +14,17 @@ declare module 'jstat' {
     beta: Dist2;
     ibeta(x: number, a: number, b: number): number;
     gammaln(x: number): number;
+    percentile(x: number[], p: number): number;
   };
   export default jStat;
+}
+
+// Types for @stdlib/stats-kstest (an independent statistics library, test-only).
+declare module '@stdlib/stats-kstest' {
+  function kstest(
+    x: ArrayLike<number>,
+    dist: string,
+    ...params: number[]
+  ): { statistic: number; pValue: number; rejected: boolean };
+  export default kstest;
 }

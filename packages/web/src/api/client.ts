@@ -45,7 +45,7 @@ export class ApiError extends Error {
 type Method = 'GET' | 'POST' | 'PATCH' | 'DELETE';
 
 /** Turn a failed response into an ApiError, whatever its body looks like. */
-async function toApiError(res: Response): Promise<ApiError> {
+export async function toApiError(res: Response): Promise<ApiError> {
   let body: unknown = null;
   try {
     body = await res.json();

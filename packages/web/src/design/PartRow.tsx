@@ -133,6 +133,11 @@ export function PartRow({ name, label }: { name: PartName; label: string }) {
               {...register(`parts.${name}.spread.inner`, optionalNumber)}
             />
           )}
+          {kind === 'empirical' && part.spread.kind === 'empirical' && part.spread.lot && (
+            <span className="text-xs text-dim" title="Values embedded from this lot">
+              lot: {part.spread.lot.name} ({part.spread.values.length})
+            </span>
+          )}
           {kind === 'empirical' && (
             <input
               aria-label={`${label} measured values`}

@@ -15,6 +15,7 @@ export function TubeFields() {
   } = useFormContext<Design>();
   const type = watch('tube.type');
   const pairing = watch('tube.spread.pairing');
+  const lot = watch('tube.spread.lot');
   const spec = TUBE_CATALOG[type];
   const e = errors.tube?.spread;
   return (
@@ -71,6 +72,19 @@ export function TubeFields() {
           <option value="mu">Matched on mu</option>
         </select>
       </Field>
+      {lot && (
+        <p className="text-sm sm:col-span-4" data-testid="tube-lot">
+          Tubes drawn whole from the measured lot <strong>{lot.name}</strong> ({lot.tubes.length} tubes): the
+          perveance and mu spreads and the section correlation above are not used.{' '}
+          <button
+            type="button"
+            className="text-glow underline"
+            onClick={() => setValue('tube.spread.lot', undefined, { shouldDirty: true })}
+          >
+            Use the spread figures instead
+          </button>
+        </p>
+      )}
       {pairing && (
         <NumberField
           id="t-within"
