@@ -7,6 +7,9 @@ import { createWorkspaceSwitchRouter } from './auth/workspaceSwitchRouter.js';
 import { createDesignsRouter } from './designs/designsRouter.js';
 import { createDevInboxRouter } from './devInbox/devInboxRouter.js';
 import { createHealthRouter } from './http/healthRouter.js';
+import { createPlansRouter } from './production/plansRouter.js';
+import { createPricesRouter } from './production/pricesRouter.js';
+import { createStudiesRouter } from './production/studiesRouter.js';
 import { createRunsRouter } from './runs/runsRouter.js';
 import { createAcceptInviteRouter } from './users/acceptInviteRouter.js';
 import { createInvitesRouter } from './users/invitesRouter.js';
@@ -31,5 +34,8 @@ export function apiRouters(deps: AppDeps): Router[] {
     createAuditRouter(deps),
     createDesignsRouter(deps),
     createRunsRouter(deps),
+    createPricesRouter(deps),
+    createPlansRouter(deps),
+    createStudiesRouter(deps),
   ];
 }

@@ -3,6 +3,7 @@ import path from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { z } from 'zod';
 import type { RouteAccess, RouteAccessTable } from '../../http/routeAccess.js';
+import { productionDetails, productionSummaries } from '../../production/productionOpenApi.js';
 import { launchRunBody, listRunsQuery, runView } from '../runSchemas.js';
 
 const SRC = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
@@ -147,9 +148,12 @@ export async function buildOpenApi(): Promise<Record<string, unknown>> {
       required: true,
       schema: { type: 'string' },
     }));
-    const details = (runsDetails[route] ?? {}) as { parameters?: object[]; responses?: object };
+    const details = (runsDetails[route] ?? productionDetails[route] ?? {}) as {
+      parameters?: object[];
+      responses?: object;
+    };
     const op = {
-      summary: summaries[route] ?? route,
+      summary: summaries[route] ?? productionSummaries[route] ?? route,
       'x-sigmatail-access': a === 'public' || a === 'signedIn' ? a : [...a],
       security: a === 'public' ? [] : [{ session: [] }],
       ...details,
