@@ -24,6 +24,12 @@ const Run = page(() => import('./pages/RunPage.js'), 'RunPage');
 const Report = page(() => import('./pages/ReportPage.js'), 'ReportPage');
 const Compare = page(() => import('./pages/ComparePage.js'), 'ComparePage');
 const Admin = page(() => import('./pages/AdminPage.js'), 'AdminPage');
+const Production = page(() => import('./pages/ProductionPage.js'), 'ProductionPage');
+const Prices = page(() => import('./pages/PricesPage.js'), 'PricesPage');
+const Plans = page(() => import('./pages/PlansPage.js'), 'PlansPage');
+const Plan = page(() => import('./pages/PlanPage.js'), 'PlanPage');
+const Pairing = page(() => import('./pages/PairingPage.js'), 'PairingPage');
+const Ageing = page(() => import('./pages/AgeingPage.js'), 'AgeingPage');
 
 /**
  * Routes. Loaders only warm the query cache (`ensureQueryData`); pages read through `useQuery`, so
@@ -91,6 +97,12 @@ export function createAppRouter(qc: QueryClient) {
           loader: async ({ params }) => (await warm(qc.ensureQueryData(runQueries.detail(params.id!))), null),
         },
         { path: 'compare', lazy: Compare },
+        { path: 'production', lazy: Production },
+        { path: 'production/prices', lazy: Prices },
+        { path: 'production/plans', lazy: Plans },
+        { path: 'production/plans/:id', lazy: Plan },
+        { path: 'production/pairing', lazy: Pairing },
+        { path: 'production/ageing', lazy: Ageing },
         {
           path: 'admin',
           lazy: Admin,

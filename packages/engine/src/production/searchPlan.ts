@@ -57,6 +57,8 @@ export type PlanSearchResult = {
   samples: number;
   seed: string;
   matchRule: MatchRule;
+  /** Currency of every cost (the price table's). */
+  currency: string;
   parts: { name: PartName; kind: ResistorKind; classes: ToleranceClass[] }[];
   /** Cheapest plan meeting the target, or null when no candidate does. */
   chosen: PlanPoint | null;
@@ -194,6 +196,7 @@ export function searchPlan(design: ResolvedDesign, options: PlanSearchOptions): 
     samples: n,
     seed,
     matchRule,
+    currency: options.prices.currency,
     parts: parts.map(({ name, kind, classes }) => ({ name, kind, classes })),
     chosen,
     frontier,

@@ -41,7 +41,7 @@ export class ApiError extends Error {
   }
 }
 
-type Method = 'GET' | 'POST' | 'PATCH' | 'DELETE';
+type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 
 /** Turn a failed response into an ApiError, whatever its body looks like. */
 async function toApiError(res: Response): Promise<ApiError> {

@@ -33,6 +33,9 @@ export function AppLayout() {
             <NavLink to="/compare" className={linkClass}>
               Compare
             </NavLink>
+            <NavLink to="/production" className={linkClass}>
+              Production
+            </NavLink>
             {can(me.role, 'admin') && (
               <NavLink to="/admin" className={linkClass}>
                 Admin

@@ -1,0 +1,15 @@
+import { ApiError } from '../api/client.js';
+
+/**
+ * The server's message for one form field (or any of its sub-fields), when the failed request
+ * named it; null otherwise.
+ *
+ * @example fieldError(mutation.error, 'samples')
+ */
+export function fieldError(error: unknown, field: string): string | null {
+  if (!(error instanceof ApiError)) return null;
+  const hit = error.issues?.find((i) => i.path === field || i.path.startsWith(`${field}.`));
+  if (hit) return hit.message;
+  if (error.field === field || error.field?.startsWith(`${field}.`)) return error.message;
+  return null;
+}
