@@ -113,8 +113,13 @@ export function searchPlan(design: ResolvedDesign, options: PlanSearchOptions): 
     throw new RangeError(`parts: ${candidates} candidate plans (at most ${MAX_PLAN_CANDIDATES})`);
 
   const allowUser = maxFailures(options.targetPpm, n, confidence);
-  if (allowUser < 0)
-    throw new RangeError(`samples: ${n} samples cannot show ${options.targetPpm} PPM at this confidence`);
+  if (allowUser < 0) {
+    let need = n;
+    while (maxFailures(options.targetPpm, need, confidence) < 0) need = Math.ceil(need * 1.25);
+    throw new RangeError(
+      `samples: ${n} samples cannot show ${options.targetPpm} PPM at this confidence (even with no reject); use at least ${need}`,
+    );
+  }
   const ladder = [...new Set([...LADDER_PPM.filter((t) => t >= options.targetPpm / 10), options.targetPpm])]
     .sort((a, b) => b - a)
     .map((ppm) => ({ ppm, allow: maxFailures(ppm, n, confidence), point: null as PlanPoint | null }))

@@ -14,8 +14,9 @@ import { TextField } from '../components/TextField.js';
 import { Button, inputClass, PageTitle, Panel } from '../components/ui.js';
 import { formatCount, formatPercent, formatPpm, formatSig } from '../format/formatSi.js';
 import { formatWhen } from '../format/formatWhen.js';
+import { metricInfo } from '../results/metricInfo.js';
 import { DesignPicker } from '../production/DesignPicker.js';
-import { fieldError } from '../production/fieldError.js';
+import { fieldError, namesField } from '../production/fieldError.js';
 import { KIND_LABELS } from '../production/kindLabels.js';
 
 type DriftText = { shift: string; sd: string; source: string };
@@ -184,7 +185,7 @@ function AgeingForm({ designId, setDesignId }: { designId: string; setDesignId: 
             {run.isPending ? 'Ageing…' : 'Apply ageing'}
           </Button>
         </fieldset>
-        {run.isError && (
+        {run.isError && !namesField(run.error, ['designId', 'samples', 'scenario']) && (
           <div className="mt-3">
             <ErrorNote error={run.error} />
           </div>
@@ -215,7 +216,7 @@ function AgeingResultView({ study }: { study: AgeingStudy }) {
         {(ref) => (
           <PairingBars
             svgRef={ref}
-            width={640}
+            width={900}
             unit="reject rate (PPM)"
             format={formatPpm}
             bars={[
@@ -243,7 +244,10 @@ function AgeingResultView({ study }: { study: AgeingStudy }) {
             const a = r.aged.specs[i];
             return (
               <tr key={i} className="border-b border-rule/60">
-                <td className="py-1">{s.label ?? s.metric}</td>
+                <td className="py-1">
+                  {s.label ?? s.metric}
+                  {unitOf(s.metric) && <span className="text-dim"> ({unitOf(s.metric)})</span>}
+                </td>
                 <td className="num text-dim">
                   {s.min ?? '−∞'} … {s.max ?? '∞'}
                 </td>
@@ -282,4 +286,9 @@ function AgeingResultView({ study }: { study: AgeingStudy }) {
       </Panel>
     </div>
   );
+}
+
+/** The metric's SI unit ('' for ratios). */
+function unitOf(metric: string): string {
+  return metricInfo(metric).unit;
 }

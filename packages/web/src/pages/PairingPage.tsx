@@ -15,7 +15,7 @@ import { Button, inputClass, PageTitle, Panel } from '../components/ui.js';
 import { formatCount, formatPercent, formatPpm } from '../format/formatSi.js';
 import { formatWhen } from '../format/formatWhen.js';
 import { DesignPicker } from '../production/DesignPicker.js';
-import { fieldError } from '../production/fieldError.js';
+import { fieldError, namesField } from '../production/fieldError.js';
 import { formatMoney } from '../production/formatMoney.js';
 import { ruleLabel } from '../production/ruleLabel.js';
 
@@ -153,7 +153,7 @@ function PairingForm({ designId, setDesignId }: { designId: string; setDesignId:
         <p className="mt-2 text-xs text-dim">
           No lot given: tubes come from the design&apos;s tube spread model.
         </p>
-        {run.isError && (
+        {run.isError && !namesField(run.error, ['designId', 'samples', 'strategies']) && (
           <div className="mt-3">
             <ErrorNote error={run.error} />
           </div>

@@ -193,7 +193,7 @@ function PlanView({ plan }: { plan: SavedPlan }) {
               <th className="py-1">For target</th>
               <th className="text-right">Cost per unit</th>
               <th className="text-right">Reject rate</th>
-              <th className="text-right">Interval</th>
+              <th className="pr-4 text-right">Interval</th>
               <th>Classes</th>
               <th>Tube</th>
             </>
@@ -204,7 +204,7 @@ function PlanView({ plan }: { plan: SavedPlan }) {
               <td className="num py-1">{formatPpm(p.targetPpm)}</td>
               <td className="num text-right">{formatMoney(p.cost, r.currency)}</td>
               <td className="num text-right">{formatPpm(p.rejectPpm)}</td>
-              <td className="num text-right text-dim">
+              <td className="num pr-4 text-right text-dim">
                 {formatPpm(p.lowPpm)} – {formatPpm(p.highPpm)}
               </td>
               <td className="num">

@@ -2,7 +2,9 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Link, useNavigate } from 'react-router';
 import { productionApi } from '../api/productionApi.js';
+import { designQueries } from '../api/queries/designQueries.js';
 import { productionQueries } from '../api/queries/productionQueries.js';
+import { runQueries } from '../api/queries/runQueries.js';
 import { can } from '../auth/permissions.js';
 import { useMe } from '../auth/useMe.js';
 import { ChoiceField } from '../components/ChoiceField.js';
@@ -13,7 +15,7 @@ import { Button, PageTitle, Panel } from '../components/ui.js';
 import { formatPpm } from '../format/formatSi.js';
 import { formatWhen } from '../format/formatWhen.js';
 import { DesignPicker } from '../production/DesignPicker.js';
-import { fieldError } from '../production/fieldError.js';
+import { fieldError, namesField } from '../production/fieldError.js';
 import { formatMoney } from '../production/formatMoney.js';
 
 /** Saved tolerance plans and the form that searches a new one. */
@@ -112,7 +114,12 @@ function NewPlanForm() {
         confirmSamples: Number(confirmSamples),
       }),
     onSuccess: async ({ plan }) => {
-      await qc.invalidateQueries({ queryKey: productionQueries.all });
+      // A confirming run adds a design revision and a run.
+      await Promise.all(
+        [productionQueries.all, designQueries.all, runQueries.all].map((queryKey) =>
+          qc.invalidateQueries({ queryKey }),
+        ),
+      );
       navigate(`/production/plans/${plan.id}`);
     },
   });
@@ -190,11 +197,19 @@ function NewPlanForm() {
           A confirming run saves a new revision of the design with the chosen classes and runs it with another
           seed.
         </p>
-        {create.isError && (
-          <div className="mt-3">
-            <ErrorNote error={create.error} />
-          </div>
-        )}
+        {create.isError &&
+          !namesField(create.error, [
+            'designId',
+            'targetPpm',
+            'targetYield',
+            'confidence',
+            'samples',
+            'confirmSamples',
+          ]) && (
+            <div className="mt-3">
+              <ErrorNote error={create.error} />
+            </div>
+          )}
       </form>
     </Panel>
   );

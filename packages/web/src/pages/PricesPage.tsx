@@ -10,7 +10,7 @@ import { ErrorNote, QueryStatus } from '../components/QueryState.js';
 import { Table } from '../components/Table.js';
 import { TextField } from '../components/TextField.js';
 import { Button, inputClass, PageTitle, Panel } from '../components/ui.js';
-import { fieldError } from '../production/fieldError.js';
+import { fieldError, namesField } from '../production/fieldError.js';
 import { KIND_LABELS } from '../production/kindLabels.js';
 
 type Row = { kind: ResistorKind; tolerance: string; price: string };
@@ -183,7 +183,9 @@ function PricesForm({ initial }: { initial: PriceTable }) {
           </Button>
           {save.isSuccess && <span className="text-sm text-moss">Saved.</span>}
         </div>
-        {save.isError && <ErrorNote error={save.error} />}
+        {save.isError && !namesField(save.error, ['resistors', 'tubes', 'currency']) && (
+          <ErrorNote error={save.error} />
+        )}
       </fieldset>
     </form>
   );

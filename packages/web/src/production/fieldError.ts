@@ -13,3 +13,8 @@ export function fieldError(error: unknown, field: string): string | null {
   if (error.field === field || error.field?.startsWith(`${field}.`)) return error.message;
   return null;
 }
+
+/** Whether the failed request named one of these form fields (so the form shows it there). */
+export function namesField(error: unknown, fields: readonly string[]): boolean {
+  return fields.some((f) => fieldError(error, f) !== null);
+}
