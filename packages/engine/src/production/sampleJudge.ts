@@ -71,32 +71,52 @@ export function countFailures(
   let fails = 0;
   let evaluated = 0;
   let b = 0;
+  // Small blocks first, so a candidate that fails at once stops after few evaluations; then
+  // growing to BLOCK, where the per-call overhead no longer shows.
+  let size = 16;
   const hardCount = hard ? hard.list.length : 0;
+  const failedNow: number[] = [];
   const flush = (): boolean => {
-    fails += judgeBlock(judge, b, hard);
+    fails += judgeBlock(judge, b, hard, failedNow);
     evaluated += b;
     b = 0;
+    size = Math.min(BLOCK, size * 2);
     return fails > stopAfter;
+  };
+  const finish = () => {
+    if (hard) moveToFront(hard, failedNow);
+    return { fails, evaluated };
   };
   for (let h = 0; h < hardCount; h++) {
     const s = hard!.list[h];
     index[b] = s;
     for (let i = 0; i < columns.length; i++) blockIn[i][b] = columns[i][s];
-    if (++b === BLOCK && flush()) return { fails, evaluated };
+    if (++b === size && flush()) return finish();
   }
   for (let s = 0; s < n; s++) {
     // Skip the samples already evaluated up front (those listed before this call).
     if (hard && hard.pos[s] >= 0 && hard.pos[s] < hardCount) continue;
     index[b] = s;
     for (let i = 0; i < columns.length; i++) blockIn[i][b] = columns[i][s];
-    if (++b === BLOCK && flush()) return { fails, evaluated };
+    if (++b === size && flush()) return finish();
   }
   if (b > 0) flush();
-  return { fails, evaluated };
+  return finish();
+}
+
+/**
+ * Puts the samples that failed this candidate at the front of the hard list: candidates are
+ * visited in cost order, and a sample that failed the last one is the likeliest to fail the next.
+ */
+function moveToFront(hard: HardSamples, failed: readonly number[]): void {
+  if (failed.length === 0) return;
+  const mark = new Set(failed);
+  hard.list = [...failed, ...hard.list.filter((s) => !mark.has(s))];
+  hard.list.forEach((s, i) => (hard.pos[s] = i));
 }
 
 /** Evaluates the b samples in the judge's block; returns the failures and marks them hard. */
-function judgeBlock(judge: SampleJudge, b: number, hard: HardSamples | null): number {
+function judgeBlock(judge: SampleJudge, b: number, hard: HardSamples | null, failed: number[]): number {
   const { kernel, blockIn, blockOut, index, lo, hi, specMetric, validMetric } = judge;
   kernel.evaluate(blockIn, b, blockOut);
   judge.evaluations += b;
@@ -110,6 +130,7 @@ function judgeBlock(judge: SampleJudge, b: number, hard: HardSamples | null): nu
     if (ok) continue;
     fails++;
     const s = index[k];
+    failed.push(s);
     if (hard && hard.pos[s] < 0) {
       hard.pos[s] = hard.list.length;
       hard.list.push(s);

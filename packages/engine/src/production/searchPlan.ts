@@ -114,8 +114,15 @@ export function searchPlan(design: ResolvedDesign, options: PlanSearchOptions): 
 
   const allowUser = maxFailures(options.targetPpm, n, confidence);
   if (allowUser < 0) {
-    let need = n;
-    while (maxFailures(options.targetPpm, need, confidence) < 0) need = Math.ceil(need * 1.25);
+    // Smallest sample count that can show the target: double, then bisect.
+    let lo = n;
+    let need = n * 2;
+    while (maxFailures(options.targetPpm, need, confidence) < 0) [lo, need] = [need, need * 2];
+    while (need - lo > 1) {
+      const mid = Math.floor((lo + need) / 2);
+      if (maxFailures(options.targetPpm, mid, confidence) < 0) lo = mid;
+      else need = mid;
+    }
     throw new RangeError(
       `samples: ${n} samples cannot show ${options.targetPpm} PPM at this confidence (even with no reject); use at least ${need}`,
     );
