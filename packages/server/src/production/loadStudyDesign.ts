@@ -32,17 +32,3 @@ export async function loadPrices(db: Kysely<Database>, workspaceId: string): Pro
   if (!row) throw new HttpError(409, 'this workspace has no price table yet; set one first', 'prices');
   return row.prices as PriceTable;
 }
-
-/**
- * Runs an engine study; a RangeError (the engine's way to name a bad field, e.g. "samples: …" or
- * "prices.resistors: …") becomes a 400 naming that field.
- */
-export function engineStudy<T>(fn: () => T): T {
-  try {
-    return fn();
-  } catch (err) {
-    if (!(err instanceof RangeError)) throw err;
-    const field = err.message.split(/[: ]/)[0];
-    throw new HttpError(400, err.message, field);
-  }
-}

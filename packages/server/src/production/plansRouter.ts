@@ -1,4 +1,4 @@
-import { applyPlan, searchPlan, type Design } from '@sigmatail/engine';
+import { applyPlan, type Design, type PlanSearchResult } from '@sigmatail/engine';
 import { Router } from 'express';
 import type { AppDeps } from '../appDeps.js';
 import { recordAudit } from '../audit/recordAudit.js';
@@ -7,9 +7,10 @@ import { insertRevision } from '../designs/designsRepo.js';
 import { HttpError } from '../http/httpError.js';
 import { uuidParam } from '../http/uuidParam.js';
 import { launchRun } from '../runs/launchRun.js';
-import { engineStudy, loadPrices, loadStudyDesign } from './loadStudyDesign.js';
+import { loadPrices, loadStudyDesign } from './loadStudyDesign.js';
 import { presentPlan } from './presentPlan.js';
 import { findPlan, insertPlan, listPlans } from './productionRepo.js';
+import { runStudy } from './runStudy.js';
 import { optionalDesignQuery, planBody } from './productionSchemas.js';
 
 /**
@@ -42,8 +43,10 @@ export function createPlansRouter({ db }: AppDeps): Router {
     const targetPpm = body.targetPpm ?? Math.round((100 - body.targetYield!) * 1e4 * 1000) / 1000;
     const seed = body.seed ?? 'plan';
     const quantity = d.resolved.tube.spread.pairing?.quantity ?? 'ia';
-    const result = engineStudy(() =>
-      searchPlan(d.resolved, {
+    const result = await runStudy<PlanSearchResult>({
+      kind: 'plan',
+      design: d.resolved,
+      options: {
         prices,
         targetPpm,
         confidence: body.confidence,
@@ -51,8 +54,8 @@ export function createPlansRouter({ db }: AppDeps): Router {
         seed,
         tubes: body.tubes,
         matchRule: body.matchWithin ? { quantity, within: body.matchWithin } : undefined,
-      }),
-    );
+      },
+    });
     let confirmRevision: number | null = null;
     let confirmRunId: string | null = null;
     if (result.chosen && body.confirmSamples > 0) {

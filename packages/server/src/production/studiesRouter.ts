@@ -1,10 +1,11 @@
-import { applyAgeing, comparePairing, DEFAULT_AGEING_SCENARIO } from '@sigmatail/engine';
+import { DEFAULT_AGEING_SCENARIO, type AgeingResult, type PairingComparison } from '@sigmatail/engine';
 import { Router, type Request } from 'express';
 import type { AppDeps } from '../appDeps.js';
 import { recordAudit } from '../audit/recordAudit.js';
 import { requireAuth, requireRole } from '../auth/requireRole.js';
 import { HttpError } from '../http/httpError.js';
-import { engineStudy, loadPrices, loadStudyDesign } from './loadStudyDesign.js';
+import { loadPrices, loadStudyDesign } from './loadStudyDesign.js';
+import { runStudy } from './runStudy.js';
 import { insertStudy, latestStudy } from './productionRepo.js';
 import { ageingBody, designQuery, pairingBody } from './productionSchemas.js';
 
@@ -42,9 +43,13 @@ export function createStudiesRouter({ db }: AppDeps): Router {
     const body = pairingBody.parse(req.body ?? {});
     const prices = await loadPrices(db, req.user!.workspaceId);
     const d = await loadStudyDesign(db, req.user!.workspaceId, body.designId, body.revision);
-    const result = engineStudy(() =>
-      comparePairing(d.resolved, prices, body.strategies, { samples: body.samples, seed: body.seed }),
-    );
+    const result = await runStudy<PairingComparison>({
+      kind: 'pairing',
+      design: d.resolved,
+      prices,
+      rules: body.strategies,
+      options: { samples: body.samples, seed: body.seed },
+    });
     res.status(201).json({
       study: await save(req, 'pairing', d.design.id, d.rev, body, { ...result, currency: prices.currency }),
     });
@@ -55,9 +60,12 @@ export function createStudiesRouter({ db }: AppDeps): Router {
     const body = ageingBody.parse(req.body ?? {});
     const d = await loadStudyDesign(db, req.user!.workspaceId, body.designId, body.revision);
     const scenario = body.scenario ?? DEFAULT_AGEING_SCENARIO;
-    const result = engineStudy(() =>
-      applyAgeing(d.resolved, scenario, { samples: body.samples, seed: body.seed }),
-    );
+    const result = await runStudy<AgeingResult>({
+      kind: 'ageing',
+      design: d.resolved,
+      scenario,
+      options: { samples: body.samples, seed: body.seed },
+    });
     res
       .status(201)
       .json({ study: await save(req, 'ageing', d.design.id, d.rev, { ...body, scenario }, result) });
