@@ -20,6 +20,15 @@ describe('production lead plans tolerances, compares pairing and ages a design',
     await page.getByRole('link', { name: /Combo 40 phase splitter rev 1/ }).waitFor();
     await screenshot(page, '20-production-home');
 
+    // The invented demo price table; a bad price is refused at its field.
+    await page.getByRole('link', { name: /Price table/ }).click();
+    await expect(page.getByLabel('Row 1 tolerance').inputValue()).resolves.toBe('5');
+    await page.getByLabel('Row 2 price').fill('-1');
+    await page.getByRole('button', { name: 'Save prices' }).click();
+    await page.getByText('A price of 0 or more').waitFor();
+    await screenshot(page, '20a-prices');
+    await page.getByRole('link', { name: 'Production', exact: true }).click();
+
     await page.getByRole('link', { name: /Tolerance plans/ }).click();
     const form = page.getByRole('form', { name: 'Plan tolerances' });
     await form
