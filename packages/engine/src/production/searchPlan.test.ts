@@ -123,6 +123,12 @@ describe('searchPlan', () => {
 
   it('names the field for a target the sample count cannot show, and for a missing price', () => {
     expect(() => searchPlan(design, { prices, targetPpm: 10, samples: 1000 })).toThrow(/^samples/);
+    expect(() => searchPlan(design, { prices, targetPpm: 0 })).toThrow(/^targetPpm/);
+    expect(() => searchPlan(design, { prices, targetPpm: 100, samples: 1.5 })).toThrow(/^samples/);
+    expect(() => searchPlan(design, { prices, targetPpm: 100, tubes: [] })).toThrow(/^tubes/);
+    expect(() => searchPlan(design, { prices, targetPpm: 100, parts: ['rload9' as PartName] })).toThrow(
+      /^parts/,
+    );
     expect(() => searchPlan(design, { prices: { ...prices, resistors: [] }, targetPpm: 1000 })).toThrow(
       /^prices.resistors/,
     );

@@ -95,6 +95,12 @@ export function searchPlan(design: ResolvedDesign, options: PlanSearchOptions): 
     return kind !== undefined && kind !== 'fixed' && kind !== 'empirical';
   };
   const names = options.parts ?? DEFAULT_PLAN_PARTS.filter(plannable);
+  if (!(options.targetPpm > 0 && options.targetPpm < 1e6))
+    throw new RangeError('targetPpm must be > 0 and < 1000000');
+  if (!Number.isInteger(n) || n < 1 || n > 10_000_000)
+    throw new RangeError('samples must be an integer 1..10000000');
+  if (!(confidence > 0 && confidence < 1)) throw new RangeError('confidence must be > 0 and < 1');
+  if (tubes.length === 0) throw new RangeError('tubes must name at least one option');
   const parts = names.map((name) => {
     const part = design.parts[name];
     if (!part) throw new RangeError(`parts: the design has no part '${name}'`);

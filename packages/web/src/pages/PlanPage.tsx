@@ -7,7 +7,7 @@ import { QueryStatus } from '../components/QueryState.js';
 import { SafetyCaution } from '../components/SafetyCaution.js';
 import { Table } from '../components/Table.js';
 import { PageTitle, Panel } from '../components/ui.js';
-import { formatCount, formatPpm } from '../format/formatSi.js';
+import { formatCount, formatPpm, formatYield } from '../format/formatSi.js';
 import { formatMoney } from '../production/formatMoney.js';
 import { KIND_LABELS } from '../production/kindLabels.js';
 import type { SavedPlan } from '../api/productionTypes.js';
@@ -112,7 +112,7 @@ function PlanView({ plan }: { plan: SavedPlan }) {
             <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-2 text-sm" data-testid="plan-intervals">
               <dt className="text-dim">Search estimate</dt>
               <dd className="num">
-                {formatPpm(chosen.rejectPpm)}{' '}
+                {formatYield(1 - chosen.rejectPpm / 1e6)} yield · {formatPpm(chosen.rejectPpm)}{' '}
                 <span className="text-dim">
                   ({formatPpm(chosen.lowPpm)} – {formatPpm(chosen.highPpm)}, {conf})
                 </span>
@@ -192,6 +192,7 @@ function PlanView({ plan }: { plan: SavedPlan }) {
             <>
               <th className="py-1">For target</th>
               <th className="text-right">Cost per unit</th>
+              <th className="text-right">Yield</th>
               <th className="text-right">Reject rate</th>
               <th className="pr-4 text-right">Interval</th>
               <th>Classes</th>
@@ -203,6 +204,7 @@ function PlanView({ plan }: { plan: SavedPlan }) {
             <tr key={i} className="border-b border-rule/60">
               <td className="num py-1">{formatPpm(p.targetPpm)}</td>
               <td className="num text-right">{formatMoney(p.cost, r.currency)}</td>
+              <td className="num text-right">{formatYield(1 - p.rejectPpm / 1e6)}</td>
               <td className="num text-right">{formatPpm(p.rejectPpm)}</td>
               <td className="num pr-4 text-right text-dim">
                 {formatPpm(p.lowPpm)} – {formatPpm(p.highPpm)}
