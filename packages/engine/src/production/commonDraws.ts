@@ -4,6 +4,7 @@ import { normalQuantile } from '../spread/normalQuantile.js';
 import { applyPartSpreadInPlace, preparePartSpread } from '../spread/partSpread.js';
 import { MAX_PAIRING_ATTEMPTS, prepareTubeSpread } from '../spread/tubeSpread.js';
 import { envelopeAccepted, type EnvelopeRule } from './envelopeRule.js';
+import type { PreparedLot } from './tubeLot.js';
 
 /** Section multiplier columns of n envelopes, and how many envelopes were drawn to fill them. */
 export type TubeColumns = {
@@ -60,7 +61,8 @@ export function partColumn(
  * Tube section multipliers of n envelopes under an envelope rule. Each sample's first envelope
  * comes from fixed columns of the seed (so every rule starts from the same tubes); an envelope the
  * rule refuses is replaced by further draws from one redraw stream, in sample order. Same
- * lognormal/copula model as the run's tube spread (see fillTubeInPlace).
+ * lognormal/copula model as the run's tube spread (see fillTubeInPlace). With a `lot`, the measured
+ * quantity of each envelope comes from the lot instead (one envelope drawn with replacement).
  *
  * @example tubeColumns(design, { kind: 'matched', quantity: 'ia', within: 10 }, 'seed', 20_000).draws
  */
@@ -69,6 +71,7 @@ export function tubeColumns(
   rule: EnvelopeRule,
   seed: string,
   n: number,
+  lot: PreparedLot | null = null,
 ): TubeColumns {
   const t = prepareTubeSpread({ ...design.tube.spread, pairing: undefined }, 'tube.spread');
   const ua = commonUniforms(seed, 'tube', 'perv1', n);
@@ -85,17 +88,25 @@ export function tubeColumns(
     draws: 0,
     failures: 0,
   };
+  const len = lot ? lot.perv1.length : 0;
   for (let s = 0; s < n; s++) {
+    let pick = ua[s];
     let a = normalQuantile(ua[s]);
     let e = normalQuantile(ue[s]);
     let b = normalQuantile(ub[s]);
     let f = normalQuantile(uf[s]);
     for (let attempt = 1; ; attempt++) {
       out.draws++;
-      const p1 = Math.exp(t.sPerv * a);
-      const p2 = Math.exp(t.sPerv * (t.rho * a + t.rhoC * e));
-      const m1 = Math.exp(t.sMu * b);
-      const m2 = Math.exp(t.sMu * (t.rho * b + t.rhoC * f));
+      let p1 = Math.exp(t.sPerv * a);
+      let p2 = Math.exp(t.sPerv * (t.rho * a + t.rhoC * e));
+      let m1 = Math.exp(t.sMu * b);
+      let m2 = Math.exp(t.sMu * (t.rho * b + t.rhoC * f));
+      if (lot) {
+        // An envelope of the lot, drawn with replacement; what it did not measure stays modelled.
+        const k = Math.min(len - 1, Math.floor(pick * len));
+        if (lot.quantity === 'mu') [m1, m2] = [lot.mu1[k], lot.mu2[k]];
+        else [p1, p2] = [lot.perv1[k], lot.perv2[k]];
+      }
       out.perv1[s] = p1;
       out.perv2[s] = p2;
       out.mu1[s] = m1;
@@ -106,6 +117,7 @@ export function tubeColumns(
         break;
       }
       redraw.fillOpen(four, 4);
+      pick = four[0];
       a = normalQuantile(four[0]);
       e = normalQuantile(four[1]);
       b = normalQuantile(four[2]);

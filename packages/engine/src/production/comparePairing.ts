@@ -8,6 +8,7 @@ import { partPrice, type PriceTable } from './priceTable.js';
 import { rejectPpm } from './rejectBounds.js';
 import { countFailures, createSampleJudge } from './sampleJudge.js';
 import { studyColumns } from './studyColumns.js';
+import { lotAcceptance, prepareLot, type TubeLot } from './tubeLot.js';
 
 /** One pairing strategy's outcome. Money in the price table's currency, per unit built. */
 export type PairingOutcome = {
@@ -21,6 +22,8 @@ export type PairingOutcome = {
   acceptance: number;
   /** Acceptance from the spread model in closed form, where there is one (matched rule), else null. */
   modelAcceptance: number | null;
+  /** With a lot: the exact share of the lot's envelopes the rule keeps; else null. */
+  lotAcceptance: number | null;
   /** Envelopes thrown away by the rule per unit built (drawn − used, per sample). */
   tubesThrownPerUnit: number;
   /** Parts at their design tolerance plus every envelope bought (used and thrown), per unit built. */
@@ -34,6 +37,8 @@ export type PairingComparison = {
   samples: number;
   seed: string;
   partsCost: number;
+  /** Envelopes in the lot the tubes came from; null = the design's spread model. */
+  lotSize: number | null;
   outcomes: PairingOutcome[];
 };
 
@@ -41,6 +46,7 @@ export type PairingComparison = {
  * Compares envelope rules for one design on common draws: the same parts and the same first
  * envelopes for every rule, so differences come from the rules. Tubes are bought unmatched
  * (prices.tubes.unmatched) and sorted in house; a refused envelope is counted as thrown away.
+ * With `options.lot` the envelopes come from a measured lot instead of the spread model.
  * Throws RangeError naming the field when a part has no price.
  *
  * @example comparePairing(design, prices, [{ kind: 'unmatched' }, { kind: 'matched', quantity: 'ia', within: 10 }])
@@ -49,8 +55,9 @@ export function comparePairing(
   design: ResolvedDesign,
   prices: PriceTable,
   rules: readonly EnvelopeRule[],
-  options: { samples?: number; seed?: string } = {},
+  options: { samples?: number; seed?: string; lot?: TubeLot } = {},
 ): PairingComparison {
+  const lot = options.lot ? prepareLot(options.lot) : null;
   const n = options.samples ?? 20_000;
   const seed = options.seed ?? 'pairing';
   let partsCost = 0;
@@ -67,7 +74,7 @@ export function comparePairing(
   const judge = createSampleJudge(design);
   const nominal = judge.kernel.nominalInputs();
   const outcomes = rules.map((rule) => {
-    const tubes = tubeColumns(design, rule, seed, n);
+    const tubes = tubeColumns(design, rule, seed, n, lot);
     const { fails } = countFailures(judge, studyColumns(design, tubes, nominal, seed, n), n, null, Infinity);
     const r = rejectPpm(fails, n);
     const envelopesPerUnit = tubes.draws / n;
@@ -81,13 +88,14 @@ export function comparePairing(
       lowPpm: r.low,
       highPpm: r.high,
       acceptance: n / tubes.draws,
-      modelAcceptance: modelAcceptance(design, rule),
+      modelAcceptance: lot ? null : modelAcceptance(design, rule),
+      lotAcceptance: lot ? lotAcceptance(lot, rule) : null,
       tubesThrownPerUnit: envelopesPerUnit - 1,
       costPerUnit,
       costPerGoodUnit: yieldFraction > 0 ? costPerUnit / yieldFraction : Infinity,
     };
   });
-  return { samples: n, seed, partsCost, outcomes };
+  return { samples: n, seed, partsCost, lotSize: lot ? lot.perv1.length : null, outcomes };
 }
 
 /**

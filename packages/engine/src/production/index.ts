@@ -4,6 +4,7 @@ export * from './envelopeRule.js';
 export * from './applyPlan.js';
 export * from './rejectBounds.js';
 export * from './commonDraws.js';
+export * from './tubeLot.js';
 export * from './sampleJudge.js';
 export * from './searchPlan.js';
 export * from './comparePairing.js';

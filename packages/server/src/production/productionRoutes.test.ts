@@ -135,6 +135,35 @@ describe('production planning API', () => {
     expect((await viewer.get(`/api/pairing/latest?designId=${designId}`)).body.study.id).toBe(
       pairing.body.study.id,
     );
+    const badLot = await production.post('/api/pairing', {
+      designId,
+      strategies: [{ kind: 'unmatched' }],
+      lot: {
+        quantity: 'ia',
+        sections: [
+          [1.2, 1.1],
+          [1.3, 0],
+        ],
+      },
+    });
+    expect(badLot.body.error.field).toBe('lot.sections.1.1');
+    const fromLot = await production.post('/api/pairing', {
+      designId,
+      samples: 2000,
+      strategies: [{ kind: 'matched', quantity: 'ia', within: 5 }],
+      lot: {
+        quantity: 'ia',
+        sections: [
+          [1.2, 1.18],
+          [1.0, 1.3],
+          [1.1, 1.12],
+          [0.9, 0.91],
+        ],
+      },
+    });
+    expect(fromLot.status).toBe(201);
+    expect(fromLot.body.study.result.lotSize).toBe(4);
+    expect(fromLot.body.study.result.outcomes[0].lotAcceptance).toBe(0.75);
     const ageing = await production.post('/api/ageing', { designId, samples: 3000 });
     expect(ageing.status).toBe(201);
     expect(ageing.body.study.result.aged.specs.length).toBe(4);

@@ -113,9 +113,21 @@ export const envelopeRuleField = z.discriminatedUnion(
   { message: 'kind must be unmatched, matched or binned' },
 );
 
+const measured = z.number({ message: 'must be a positive number' }).positive('must be a positive number');
+
 /** POST /api/pairing: compare pairing strategies for one design. */
 export const pairingBody = z.strictObject({
   ...designRef,
+  lot: z
+    .strictObject({
+      quantity,
+      sections: z
+        .array(z.tuple([measured, measured], { message: 'must be [section 1, section 2]' }))
+        .min(1, 'needs at least one envelope')
+        .max(20_000, 'at most 20000 envelopes'),
+    })
+    .optional()
+    .describe('measured envelopes to draw tubes from (default: the design’s spread model)'),
   strategies: z
     .array(envelopeRuleField)
     .min(1, 'choose at least one strategy')

@@ -48,7 +48,7 @@ export function createStudiesRouter({ db }: AppDeps): Router {
       design: d.resolved,
       prices,
       rules: body.strategies,
-      options: { samples: body.samples, seed: body.seed },
+      options: { samples: body.samples, seed: body.seed, lot: body.lot },
     });
     res.status(201).json({
       study: await save(req, 'pairing', d.design.id, d.rev, body, { ...result, currency: prices.currency }),

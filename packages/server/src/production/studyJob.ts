@@ -7,6 +7,7 @@ import {
   type PlanSearchOptions,
   type PriceTable,
   type ResolvedDesign,
+  type TubeLot,
 } from '@sigmatail/engine';
 
 /** One production study, as plain data (it crosses to a pool thread). */
@@ -17,13 +18,13 @@ export type StudyInput =
       design: ResolvedDesign;
       prices: PriceTable;
       rules: EnvelopeRule[];
-      options: { samples?: number; seed?: string };
+      options: { samples?: number; seed?: string; lot?: TubeLot };
     }
   | {
       kind: 'ageing';
       design: ResolvedDesign;
       scenario: AgeingScenario;
-      options: { samples?: number; seed?: string };
+      options: { samples?: number; seed?: string; lot?: TubeLot };
     };
 
 /**
