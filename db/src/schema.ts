@@ -228,6 +228,46 @@ export interface LotsTable {
 export type Lot = Selectable<LotsTable>;
 
 // ---- end of lots tables ----
+// ---- production planning tables (prices, plans, pairing and ageing studies) ----
+
+/** A workspace's price table (the engine's PriceTable). */
+export interface PriceTablesTable {
+  workspace_id: string;
+  prices: Json<unknown>;
+  updated_by: string | null;
+  updated_at: ColumnType<Date, Date | undefined, Date>;
+}
+
+/** A saved tolerance plan: the search's target and result, the chosen assignment, the confirming run. */
+export interface ProductionPlansTable {
+  id: Generated<string>;
+  workspace_id: string;
+  design_id: string;
+  revision: number;
+  created_by: string | null;
+  target: Json<unknown>;
+  result: Json<unknown>;
+  assignment: ColumnType<unknown, string | null | undefined, string | null>;
+  /** The design revision saved with the chosen classes, which the confirming run analyses. */
+  confirm_revision: number | null;
+  confirm_run_id: string | null;
+  created_at: CreatedAt;
+}
+
+/** A saved pairing comparison or ageing result of one design revision. */
+export interface ProductionStudiesTable {
+  id: Generated<string>;
+  workspace_id: string;
+  design_id: string;
+  revision: number;
+  kind: 'pairing' | 'ageing';
+  created_by: string | null;
+  input: Json<unknown>;
+  result: Json<unknown>;
+  created_at: CreatedAt;
+}
+
+// ---- end of production planning tables ----
 
 /** Every table of the application database. */
 export interface Database {
@@ -248,6 +288,10 @@ export interface Database {
   run_results: RunResultsTable;
   // lots tables below
   lots: LotsTable;
+  // production planning tables below
+  price_tables: PriceTablesTable;
+  production_plans: ProductionPlansTable;
+  production_studies: ProductionStudiesTable;
 }
 
 export type Workspace = Selectable<WorkspacesTable>;

@@ -68,4 +68,24 @@ describe('seedDemo', () => {
       expect(designs.filter((x) => x.name === d.name)).toEqual([{ name: d.name, latest_rev: 1 }]);
     }
   });
+
+  it('gives the workshop a price table and one saved tolerance plan, once', async () => {
+    const { workspaceId } = await seedDemo(db);
+    await seedDemo(db);
+    const prices = await db
+      .selectFrom('price_tables')
+      .select('prices')
+      .where('workspace_id', '=', workspaceId)
+      .execute();
+    expect(prices).toHaveLength(1);
+    const plans = await db
+      .selectFrom('production_plans')
+      .select(['result', 'assignment'])
+      .where('workspace_id', '=', workspaceId)
+      .execute();
+    expect(plans).toHaveLength(1);
+    const result = plans[0]!.result as { chosen: { highPpm: number } | null; frontier: unknown[] };
+    expect(result.chosen!.highPpm).toBeLessThanOrEqual(500);
+    expect(result.frontier.length).toBeGreaterThan(1);
+  });
 });

@@ -1,7 +1,8 @@
 import bcrypt from 'bcryptjs';
-import { sql, type Kysely } from 'kysely';
+import { sql, type Kysely, type Transaction } from 'kysely';
 import { DEMO_DESIGNS } from './demoDesigns.js';
 import { demoLots } from './demoLots/demoLots.js';
+import { DEMO_PLAN_DESIGN, DEMO_PLAN_TARGET, DEMO_PRICES, demoPlanResult } from './demoProduction.js';
 import { engineExampleDesigns } from './engineExampleDesigns.js';
 import {
   DEFAULT_WORKSPACE_SETTINGS,
@@ -13,7 +14,7 @@ import type { Database } from './schema.js';
 
 /**
  * Creates the demo workshop, its four users (one per role), its demo designs (our own plus the
- * engine's valid examples) and its demo lots. Idempotent: rows
+ * engine's valid examples), its demo lots, its price table and one saved tolerance plan. Idempotent: rows
  * that exist already (matched by workspace name, email, design name) are left as they are, so it
  * is safe to run on every start and never overwrites a password or design someone changed.
  */
@@ -92,6 +93,45 @@ export async function seedDemo(db: Kysely<Database>): Promise<{ workspaceId: str
         })
         .execute();
     }
+    await seedProduction(tx, ws.id, author);
     return { workspaceId: ws.id };
   });
+}
+
+/** The demo price table and one saved plan, each only when the workshop has none yet. */
+async function seedProduction(tx: Transaction<Database>, workspaceId: string, author: string | undefined) {
+  await tx
+    .insertInto('price_tables')
+    .values({ workspace_id: workspaceId, prices: JSON.stringify(DEMO_PRICES), updated_by: author ?? null })
+    .onConflict((oc) => oc.column('workspace_id').doNothing())
+    .execute();
+  const hasPlan = await tx
+    .selectFrom('production_plans')
+    .select('id')
+    .where('workspace_id', '=', workspaceId)
+    .executeTakeFirst();
+  if (hasPlan) return;
+  const design = await tx
+    .selectFrom('designs as d')
+    .innerJoin('design_revisions as r', (j) =>
+      j.onRef('r.design_id', '=', 'd.id').onRef('r.rev', '=', 'd.latest_rev'),
+    )
+    .select(['d.id', 'r.rev', 'r.document'])
+    .where('d.workspace_id', '=', workspaceId)
+    .where('d.name', '=', DEMO_PLAN_DESIGN)
+    .executeTakeFirst();
+  const result = design && demoPlanResult(design.document);
+  if (!design || !result) return;
+  await tx
+    .insertInto('production_plans')
+    .values({
+      workspace_id: workspaceId,
+      design_id: design.id,
+      revision: design.rev,
+      created_by: author ?? null,
+      target: JSON.stringify(DEMO_PLAN_TARGET),
+      result: JSON.stringify(result),
+      assignment: result.chosen ? JSON.stringify(result.chosen.assignment) : null,
+    })
+    .execute();
 }

@@ -3,3 +3,5 @@
 export * from './modelsApi.js';
 export * from './statsApi.js';
 export { ENGINE_VERSION } from './version.js';
+export * from './production/index.js';
+export * from './values/resistorKinds.js';

@@ -9,6 +9,9 @@ import { createDevInboxRouter } from './devInbox/devInboxRouter.js';
 import { createHealthRouter } from './http/healthRouter.js';
 import { createReportsRouter } from './reports/reportsRouter.js';
 import { createLotsRouter } from './lots/lotsRouter.js';
+import { createPlansRouter } from './production/plansRouter.js';
+import { createPricesRouter } from './production/pricesRouter.js';
+import { createStudiesRouter } from './production/studiesRouter.js';
 import { createRunsRouter } from './runs/runsRouter.js';
 import { createTestLimitsRouter } from './testLimits/testLimitsRouter.js';
 import { createAcceptInviteRouter } from './users/acceptInviteRouter.js';
@@ -37,5 +40,8 @@ export function apiRouters(deps: AppDeps): Router[] {
     createReportsRouter(deps),
     createLotsRouter(deps),
     createTestLimitsRouter(deps),
+    createPricesRouter(deps),
+    createPlansRouter(deps),
+    createStudiesRouter(deps),
   ];
 }

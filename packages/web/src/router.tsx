@@ -30,6 +30,12 @@ const Admin = page(() => import('./pages/AdminPage.js'), 'AdminPage');
 const Lots = page(() => import('./pages/LotsPage.js'), 'LotsPage');
 const LotDetail = page(() => import('./pages/LotDetailPage.js'), 'LotDetailPage');
 const TestLimits = page(() => import('./pages/TestLimitsPage.js'), 'TestLimitsPage');
+const Production = page(() => import('./pages/ProductionPage.js'), 'ProductionPage');
+const Prices = page(() => import('./pages/PricesPage.js'), 'PricesPage');
+const Plans = page(() => import('./pages/PlansPage.js'), 'PlansPage');
+const Plan = page(() => import('./pages/PlanPage.js'), 'PlanPage');
+const Pairing = page(() => import('./pages/PairingPage.js'), 'PairingPage');
+const Ageing = page(() => import('./pages/AgeingPage.js'), 'AgeingPage');
 
 /**
  * Routes. Loaders only warm the query cache (`ensureQueryData`); pages read through `useQuery`, so
@@ -105,6 +111,12 @@ export function createAppRouter(qc: QueryClient) {
           ),
         },
         { path: 'compare', lazy: Compare },
+        { path: 'production', lazy: Production },
+        { path: 'production/prices', lazy: Prices },
+        { path: 'production/plans', lazy: Plans },
+        { path: 'production/plans/:id', lazy: Plan },
+        { path: 'production/pairing', lazy: Pairing },
+        { path: 'production/ageing', lazy: Ageing },
         {
           path: 'production/lots',
           lazy: Lots,

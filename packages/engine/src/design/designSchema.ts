@@ -3,6 +3,7 @@ import { TUBE_TYPES } from '../tubes/tubeTypes.js';
 import { METRIC_IDS } from '../model/metrics.js';
 import { MAX_SPREAD_K, MAX_TOLERANCE_PERCENT } from '../limits.js';
 import { parseValue } from '../values/parseValue.js';
+import { RESISTOR_KINDS } from '../values/resistorKinds.js';
 
 const finite = () => z.number().refine(Number.isFinite, 'must be a finite number');
 const spreadK = finite().positive().max(MAX_SPREAD_K).optional();
@@ -56,6 +57,8 @@ export const partSchema = z
     value: partValue,
     tolerance: finite().min(0).lt(MAX_TOLERANCE_PERCENT, `must be below ${MAX_TOLERANCE_PERCENT} %`),
     spread: spreadSchema,
+    /** Construction (prices, ageing); metal film when absent. Optional, so older documents still read. */
+    kind: z.enum(RESISTOR_KINDS).optional(),
   })
   .refine((p) => p.spread.kind !== 'binned' || p.spread.inner < p.tolerance, {
     message: 'the sorted-out band must be narrower than the tolerance',

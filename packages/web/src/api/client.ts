@@ -42,7 +42,7 @@ export class ApiError extends Error {
   }
 }
 
-type Method = 'GET' | 'POST' | 'PATCH' | 'DELETE';
+type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 
 /** Turn a failed response into an ApiError, whatever its body looks like. */
 export async function toApiError(res: Response): Promise<ApiError> {

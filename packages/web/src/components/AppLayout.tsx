@@ -33,8 +33,8 @@ export function AppLayout() {
             <NavLink to="/compare" className={linkClass}>
               Compare
             </NavLink>
-            <NavLink to="/production/lots" className={linkClass}>
-              Lots
+            <NavLink to="/production" className={linkClass}>
+              Production
             </NavLink>
             {can(me.role, 'admin') && (
               <NavLink to="/admin" className={linkClass}>

@@ -5,6 +5,7 @@ import { z } from 'zod';
 import { designJsonSchema } from '@sigmatail/engine';
 import type { RouteAccess, RouteAccessTable } from '../../http/routeAccess.js';
 import { lotsDetails, lotsSummaries } from '../../lots/lotsOpenApi.js';
+import { productionDetails, productionSummaries } from '../../production/productionOpenApi.js';
 import type { RouteBodyTable } from '../../http/routeBodies.js';
 import { launchRunBody, listRunsQuery, runView, samplesQuery } from '../runSchemas.js';
 
@@ -193,13 +194,13 @@ export async function buildOpenApi(): Promise<Record<string, unknown>> {
       required: true,
       schema: { type: 'string' },
     }));
-    const details = (runsDetails[route] ?? lotsDetails[route] ?? {}) as {
+    const details = (runsDetails[route] ?? lotsDetails[route] ?? productionDetails[route] ?? {}) as {
       parameters?: object[];
       responses?: object;
     };
     const body = bodies[route];
     const op = {
-      summary: summaries[route] ?? lotsSummaries[route] ?? route,
+      summary: summaries[route] ?? lotsSummaries[route] ?? productionSummaries[route] ?? route,
       'x-sigmatail-access': a === 'public' || a === 'signedIn' ? a : [...a],
       security: a === 'public' ? [] : [{ session: [] }],
       ...(body

@@ -1,0 +1,4 @@
+import { studyJob } from './studyJob.js';
+
+/** The study pool's thread file. */
+export default studyJob;
