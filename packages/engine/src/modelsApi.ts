@@ -13,6 +13,7 @@ export * from './model/stageEvaluator.js';
 export { INPUTS, createStageKernel, type InputId, type StageKernel } from './model/stageKernel.js';
 export * from './design/designSchema.js';
 export * from './design/parseDesign.js';
+export * from './design/migrateDesign.js';
 export * from './values/eSeries.js';
 export * from './model/stagePoint.js';
 export * from './model/trimRl2.js';
