@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { TUBE_TYPES } from '../tubes/tubeTypes.js';
-import { AC_METRIC_IDS, METRIC_IDS } from '../model/metrics.js';
+import { AC_METRIC_IDS, CORNER_METRIC_IDS, METRIC_IDS } from '../model/metrics.js';
 import { MAX_SPREAD_K, MAX_TOLERANCE_PERCENT } from '../limits.js';
 import { parseValue } from '../values/parseValue.js';
 
@@ -89,7 +89,7 @@ export const tubeSpreadSchema = z.object({
  */
 export const specSchema = z
   .object({
-    metric: z.enum([...METRIC_IDS, ...AC_METRIC_IDS]),
+    metric: z.enum([...METRIC_IDS, ...CORNER_METRIC_IDS, ...AC_METRIC_IDS]),
     /** Hz; required by the frequency metrics, refused by the others. */
     frequency: finite().positive().max(1e7, 'must be at most 10 MHz').optional(),
     min: finite().optional(),

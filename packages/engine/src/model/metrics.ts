@@ -3,7 +3,7 @@ export type MetricUnit = 'V' | 'A' | 'W' | 'Ω' | 'S' | 'dB' | 'Hz' | '°' | '';
 
 /** Description of one metric the stage kernel writes per sample. */
 export interface MetricInfo {
-  id: MetricId | AcMetricId;
+  id: MetricId | CornerMetricId | AcMetricId;
   label: string;
   unit: MetricUnit;
   description: string;
@@ -45,15 +45,24 @@ export const METRIC_IDS = [
   'rp2',
   'mu1',
   'mu2',
-  'fLow1',
-  'fLow2',
-  'fHigh1',
-  'fHigh2',
   'valid',
 ] as const;
 
 /** One of {@link METRIC_IDS}. */
 export type MetricId = (typeof METRIC_IDS)[number];
+
+/**
+ * The −3 dB points of each output (Hz). The kernel writes them after {@link METRIC_IDS} when the
+ * design uses the frequency analysis (any capacitor part or frequency spec), so designs without
+ * capacitors keep exactly their midband columns.
+ *
+ * @example
+ * CORNER_METRIC_IDS[2]; // 'fHigh1'
+ */
+export const CORNER_METRIC_IDS = ['fLow1', 'fLow2', 'fHigh1', 'fHigh2'] as const;
+
+/** One of {@link CORNER_METRIC_IDS}. */
+export type CornerMetricId = (typeof CORNER_METRIC_IDS)[number];
 
 /**
  * Metrics that apply at one frequency (grid 1 driven, grid 2 held by its bypass capacitor). The
@@ -148,6 +157,18 @@ const INFO: Record<MetricId, Omit<MetricInfo, 'id'>> = {
   rp2: { label: 'rp2', unit: 'Ω', description: 'Plate resistance of section 2 at its bias' },
   mu1: { label: 'mu1', unit: '', description: 'Amplification factor gm·rp of section 1 at its bias' },
   mu2: { label: 'mu2', unit: '', description: 'Amplification factor gm·rp of section 2 at its bias' },
+  valid: { label: 'Valid', unit: '', description: '1 when a bias point exists, else 0 (other metrics NaN)' },
+};
+
+/**
+ * Metric descriptions in kernel output order (same order as {@link METRIC_IDS}).
+ *
+ * @example
+ * METRICS.find((m) => m.id === 'zout1')?.unit; // 'Ω'
+ */
+export const METRICS: readonly MetricInfo[] = METRIC_IDS.map((id) => ({ id, ...INFO[id] }));
+
+const CORNER_INFO: Record<CornerMetricId, Omit<MetricInfo, 'id'>> = {
   fLow1: {
     label: 'Low −3 dB, out 1',
     unit: 'Hz',
@@ -169,16 +190,18 @@ const INFO: Record<MetricId, Omit<MetricInfo, 'id'>> = {
     unit: 'Hz',
     description: 'Frequency above midband where |vo2/vi1| is 3 dB under its midband value',
   },
-  valid: { label: 'Valid', unit: '', description: '1 when a bias point exists, else 0 (other metrics NaN)' },
 };
 
 /**
- * Metric descriptions in kernel output order (same order as {@link METRIC_IDS}).
+ * Descriptions of the −3 dB point metrics, in kernel order.
  *
  * @example
- * METRICS.find((m) => m.id === 'zout1')?.unit; // 'Ω'
+ * CORNER_METRICS[0].unit; // 'Hz'
  */
-export const METRICS: readonly MetricInfo[] = METRIC_IDS.map((id) => ({ id, ...INFO[id] }));
+export const CORNER_METRICS: readonly MetricInfo[] = CORNER_METRIC_IDS.map((id) => ({
+  id,
+  ...CORNER_INFO[id],
+}));
 
 const AC_INFO: Record<AcMetricId, Omit<MetricInfo, 'id'>> = {
   acGain1: { label: 'Gain 1', unit: '', description: '|vo1/vi1| at the spec frequency (source to plate 1)' },
@@ -218,7 +241,11 @@ export function describeMetric(id: string): Omit<MetricInfo, 'id'> {
     const f = Number(id.slice(at + 1));
     if (base) return { ...base, label: `${base.label} at ${formatHz(f)}` };
   }
-  return INFO[id as MetricId] ?? AC_INFO[id as AcMetricId] ?? { label: id, unit: '', description: '' };
+  return (
+    INFO[id as MetricId] ??
+    CORNER_INFO[id as CornerMetricId] ??
+    AC_INFO[id as AcMetricId] ?? { label: id, unit: '', description: '' }
+  );
 }
 
 /** '20 Hz', '1 kHz', '20 kHz', '1.5 MHz'. */

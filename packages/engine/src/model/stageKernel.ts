@@ -2,6 +2,7 @@ import type { ResolvedDesign } from '../design/designSchema.js';
 import {
   acColumnId,
   BAND_FREQUENCIES,
+  CORNER_METRIC_IDS,
   METRIC_IDS,
   METRICS,
   type AcMetricId,
@@ -22,7 +23,6 @@ import {
   AC_CSTRAY1,
   AC_CSTRAY2,
   AC_SLOTS,
-  AC_WORK_SLOTS,
   acResponseArr,
   H1_IM,
   H1_RE,
@@ -30,7 +30,7 @@ import {
   H2_RE,
   H_SLOTS,
 } from './acResponse.js';
-import { cornerFrequencyArr } from './cornerFrequency.js';
+import { cornerFrequencyArr, cornerSlopeArr } from './cornerFrequency.js';
 import { createBiasPredictor } from './biasPredictor.js';
 import { closedFormGainsArr } from './closedFormGains.js';
 import {
@@ -143,7 +143,10 @@ const SAMPLE_STEP_TOL = 1e-6;
  * `dcPerSample: false` the bias is solved once at nominal; per sample only the small signal is
  * solved, with mu scaled by the mu multiplier and rp divided by the perveance multiplier
  * (a first-order approximation). A sample without a valid bias point gets valid = 0 and NaN
- * elsewhere.
+ * elsewhere. Then the frequency response (complex nodal solve with the capacitors): the four
+ * frequency metrics at each spec frequency, and, when the design uses the frequency analysis
+ * (see usesFrequencyAnalysis; `corners` / `band` override), the −3 dB points (secant from the
+ * nominal corners) and the balance at each BAND_FREQUENCIES entry.
  *
  * @example
  * const k = createStageKernel(design);
@@ -156,9 +159,11 @@ export function createStageKernel(
   options?: { dcPerSample?: boolean; corners?: boolean; band?: boolean },
 ): StageKernel {
   const dcPerSample = options?.dcPerSample ?? true;
-  const corners = options?.corners ?? true;
-  const ac = acColumns(design, options?.band ?? true);
-  const metrics: readonly string[] = [...METRIC_IDS, ...ac.ids];
+  const analysis = usesFrequencyAnalysis(design);
+  const corners = options?.corners ?? analysis;
+  const cornerIds: readonly string[] = corners ? CORNER_METRIC_IDS : [];
+  const ac = acColumns(design, options?.band ?? analysis, METRIC_IDS.length + cornerIds.length);
+  const metrics: readonly string[] = [...METRIC_IDS, ...cornerIds, ...ac.ids];
   const ctx = createStageContext(design);
   const nominal = nominalStageInputs(design);
   const nominalArray = Float64Array.from(INPUTS.map((id) => nominal[id]));
@@ -171,7 +176,6 @@ export function createStageKernel(
   const dcv = new Float64Array(DC_SLOTS);
   const v = new Float64Array(AC_SLOTS);
   const g = new Float64Array(G_SLOTS);
-  const acw = new Float64Array(AC_WORK_SLOTS);
   const h = new Float64Array(H_SLOTS);
   // Tube interelectrode capacitances (catalog, per section; no spread).
   const caps = ctx.tube.capacitance;
@@ -182,7 +186,7 @@ export function createStageKernel(
   v[AC_CPK1] = caps.cout;
   v[AC_CPK2] = caps.cout;
   // Nominal −3 dB points: the per-sample corner searches start from them.
-  const nomCorners = nominalCorners(ctx, nominal, nb, v, acw, h, corners);
+  const nomCorners = nominalCorners(ctx, nominal, nb, v, h, corners);
   const lowCorners =
     corners &&
     !(
@@ -252,10 +256,11 @@ export function createStageKernel(
     const i_cout2 = inputs[16];
     const i_cstray1 = inputs[17];
     const i_cstray2 = inputs[18];
-    const o_fLow1 = out[col('fLow1')];
-    const o_fLow2 = out[col('fLow2')];
-    const o_fHigh1 = out[col('fHigh1')];
-    const o_fHigh2 = out[col('fHigh2')];
+    // Corner columns follow METRIC_IDS when on (unused otherwise).
+    const o_fLow1 = out[corners ? METRIC_IDS.length : 0];
+    const o_fLow2 = out[corners ? METRIC_IDS.length + 1 : 0];
+    const o_fHigh1 = out[corners ? METRIC_IDS.length + 2 : 0];
+    const o_fHigh2 = out[corners ? METRIC_IDS.length + 3 : 0];
     const nf = acFreq.length;
     const o_a11 = out[col('a11')];
     const o_a12 = out[col('a12')];
@@ -413,26 +418,21 @@ export function createStageKernel(
       v[AC_CSTRAY1] = cstray1;
       v[AC_CSTRAY2] = cstray2;
       for (let fi = 0; fi < nf; fi++) {
-        const ok = acResponse(capCoupled, leakToGrid1, v, acFreq[fi], acw, h);
+        const ok = acResponse(capCoupled, leakToGrid1, v, acFreq[fi], h);
         writeAcColumns(out, acCol, fi, s, ok, h);
       }
       if (corners) {
         const ref1 = Math.abs(a11);
         const ref2 = Math.abs(a12);
-        o_fHigh1[s] = corner(capCoupled, leakToGrid1, v, 1, ref1, 'high', nomCorners[2], 0.02, acw, h);
-        o_fHigh2[s] = corner(capCoupled, leakToGrid1, v, 2, ref2, 'high', nomCorners[3], 0.02, acw, h);
+        o_fHigh1[s] = corner(capCoupled, leakToGrid1, v, 1, ref1, 'high', nomCorners[2], nomCorners[6], h);
+        o_fHigh2[s] = corner(capCoupled, leakToGrid1, v, 2, ref2, 'high', nomCorners[3], nomCorners[7], h);
         if (lowCorners) {
-          o_fLow1[s] = corner(capCoupled, leakToGrid1, v, 1, ref1, 'low', nomCorners[0], 0.02, acw, h);
-          o_fLow2[s] = corner(capCoupled, leakToGrid1, v, 2, ref2, 'low', nomCorners[1], 0.02, acw, h);
+          o_fLow1[s] = corner(capCoupled, leakToGrid1, v, 1, ref1, 'low', nomCorners[0], nomCorners[4], h);
+          o_fLow2[s] = corner(capCoupled, leakToGrid1, v, 2, ref2, 'low', nomCorners[1], nomCorners[5], h);
         } else {
           o_fLow1[s] = 0;
           o_fLow2[s] = 0;
         }
-      } else {
-        o_fLow1[s] = Number.NaN;
-        o_fLow2[s] = Number.NaN;
-        o_fHigh1[s] = Number.NaN;
-        o_fHigh2[s] = Number.NaN;
       }
       o_valid[s] = 1;
     }
@@ -446,6 +446,21 @@ export function createStageKernel(
   };
 }
 
+/**
+ * Whether a design uses the frequency analysis (−3 dB points and the balance band): it has a
+ * capacitor part or a spec on a frequency metric. Without, the kernel writes only the midband
+ * columns, exactly as before capacitors existed.
+ *
+ * @example
+ * usesFrequencyAnalysis(buildDesign()); // false
+ */
+export function usesFrequencyAnalysis(design: ResolvedDesign): boolean {
+  const p = design.parts;
+  const caps = p.cin ?? p.cg2 ?? p.cout1 ?? p.cout2 ?? p.cstray1 ?? p.cstray2;
+  const corner = (CORNER_METRIC_IDS as readonly string[]).includes.bind(CORNER_METRIC_IDS);
+  return caps !== undefined || design.specs.some((s) => s.frequency !== undefined || corner(s.metric));
+}
+
 /** Column slots per frequency: gain 1, gain 2, balance, phase (-1 = not a column). */
 const AC_PER_FREQ = 4;
 
@@ -456,6 +471,7 @@ const AC_PER_FREQ = 4;
 function acColumns(
   design: ResolvedDesign,
   band: boolean,
+  first: number,
 ): { ids: string[]; frequencies: Float64Array; columns: Int32Array } {
   const wanted: { metric: AcMetricId; f: number }[] = [];
   const AC: readonly AcMetricId[] = ['acGain1', 'acGain2', 'acBalanceDb', 'acPhaseDeg'];
@@ -474,7 +490,7 @@ function acColumns(
       freqs.push(f);
       cols.push(-1, -1, -1, -1);
     }
-    cols[fi * AC_PER_FREQ + AC.indexOf(metric)] = METRIC_IDS.length + ids.length;
+    cols[fi * AC_PER_FREQ + AC.indexOf(metric)] = first + ids.length;
     ids.push(id);
   }
   return { ids, frequencies: Float64Array.from(freqs), columns: Int32Array.from(cols) };
@@ -508,19 +524,20 @@ function writeAcColumns(
 }
 
 /**
- * Nominal −3 dB points [fLow1, fLow2, fHigh1, fHigh2] (Hz) by a wide search from 1 kHz; NaN
- * entries are replaced by 1 kHz (a start point must be finite). Fills v with the nominal circuit.
+ * Nominal −3 dB points [fLow1, fLow2, fHigh1, fHigh2] (Hz) by a bracketed search from 1 kHz, then
+ * the response slope at each (the per-sample secant's first step; 0 = none). A corner that does
+ * not exist at nominal is replaced by 1 kHz with slope 0 (a start point must be finite). Fills v
+ * with the nominal circuit.
  */
 function nominalCorners(
   ctx: ReturnType<typeof createStageContext>,
   x: ReturnType<typeof nominalStageInputs>,
   nb: { status: string; gm1: number; gm2: number; ga1: number; ga2: number },
   v: Float64Array,
-  w: Float64Array,
   h: Float64Array,
   on: boolean,
 ): Float64Array {
-  const out = Float64Array.of(1e3, 1e3, 1e3, 1e3);
+  const out = Float64Array.of(1e3, 1e3, 1e3, 1e3, 0, 0, 0, 0);
   if (!on || nb.status !== 'ok') return out;
   v[SS_RP1] = 1 / nb.ga1;
   v[SS_RP2] = 1 / nb.ga2;
@@ -555,11 +572,13 @@ function nominalCorners(
       ref[which - 1],
       i < 2 ? 'low' : 'high',
       1e3,
-      0.3,
-      w,
+      0,
       h,
     );
-    if (Number.isFinite(f) && f > 0) out[i] = f;
+    if (Number.isFinite(f) && f > 0) {
+      out[i] = f;
+      out[i + 4] = cornerSlopeArr(capCoupled, leakToGrid1, v, which, f, h);
+    }
   }
   return out;
 }
