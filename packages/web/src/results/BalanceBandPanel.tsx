@@ -38,7 +38,8 @@ export function BalanceBandPanel({ results, runId }: { results: RunResults; runI
               label: '2.5–97.5 %',
             }}
             unit="dB"
-            height={240}
+            width={920}
+            height={260}
           />
         </div>
       )}
