@@ -192,8 +192,9 @@ export function acResponseArr(
   // Unrolled Gaussian elimination without pivoting, skipping structural zeros and the imaginary
   // parts of entries that stay real (written out mechanically from the pattern above).
   const d0 = r_P1_P1 * r_P1_P1 + i_P1_P1 * i_P1_P1;
-  const ir0 = r_P1_P1 / d0;
-  const ii0 = -i_P1_P1 / d0;
+  const q0 = 1 / d0;
+  const ir0 = r_P1_P1 * q0;
+  const ii0 = -i_P1_P1 * q0;
   const lr20 = r_K_P1 * ir0 - i_K_P1 * ii0;
   const li20 = r_K_P1 * ii0 + i_K_P1 * ir0;
   r_K_K -= lr20 * r_P1_K - li20 * i_P1_K;
@@ -207,8 +208,9 @@ export function acResponseArr(
   r_G1_G1 -= lr30 * r_P1_G1 - li30 * i_P1_G1;
   i_G1_G1 -= lr30 * i_P1_G1 + li30 * r_P1_G1;
   const d1 = r_P2_P2 * r_P2_P2 + i_P2_P2 * i_P2_P2;
-  const ir1 = r_P2_P2 / d1;
-  const ii1 = -i_P2_P2 / d1;
+  const q1 = 1 / d1;
+  const ir1 = r_P2_P2 * q1;
+  const ii1 = -i_P2_P2 * q1;
   const lr21 = r_K_P2 * ir1 - i_K_P2 * ii1;
   const li21 = r_K_P2 * ii1 + i_K_P2 * ir1;
   r_K_K -= lr21 * r_P2_K - li21 * i_P2_K;
@@ -222,8 +224,9 @@ export function acResponseArr(
   r_G2_G2 -= lr41 * r_P2_G2 - li41 * i_P2_G2;
   i_G2_G2 -= lr41 * i_P2_G2 + li41 * r_P2_G2;
   const d2 = r_K_K * r_K_K + i_K_K * i_K_K;
-  const ir2 = r_K_K / d2;
-  const ii2 = -i_K_K / d2;
+  const q2 = 1 / d2;
+  const ir2 = r_K_K * q2;
+  const ii2 = -i_K_K * q2;
   const lr32 = r_G1_K * ir2 - i_G1_K * ii2;
   const li32 = r_G1_K * ii2 + i_G1_K * ir2;
   r_G1_G1 -= lr32 * r_K_G1 - li32 * i_K_G1;
@@ -249,8 +252,9 @@ export function acResponseArr(
   r_J_J -= lr52 * r_K_J;
   i_J_J -= li52 * r_K_J;
   const d3 = r_G1_G1 * r_G1_G1 + i_G1_G1 * i_G1_G1;
-  const ir3 = r_G1_G1 / d3;
-  const ii3 = -i_G1_G1 / d3;
+  const q3 = 1 / d3;
+  const ir3 = r_G1_G1 * q3;
+  const ii3 = -i_G1_G1 * q3;
   const lr43 = r_G2_G1 * ir3 - i_G2_G1 * ii3;
   const li43 = r_G2_G1 * ii3 + i_G2_G1 * ir3;
   r_G2_G2 -= lr43 * r_G1_G2 - li43 * i_G1_G2;
@@ -272,8 +276,9 @@ export function acResponseArr(
   br5 -= lr53 * br3 - li53 * bi3;
   bi5 -= lr53 * bi3 + li53 * br3;
   const d4 = r_G2_G2 * r_G2_G2 + i_G2_G2 * i_G2_G2;
-  const ir4 = r_G2_G2 / d4;
-  const ii4 = -i_G2_G2 / d4;
+  const q4 = 1 / d4;
+  const ir4 = r_G2_G2 * q4;
+  const ii4 = -i_G2_G2 * q4;
   const lr54 = r_J_G2 * ir4 - i_J_G2 * ii4;
   const li54 = r_J_G2 * ii4 + i_J_G2 * ir4;
   r_J_J -= lr54 * r_G2_J - li54 * i_G2_J;
@@ -281,8 +286,9 @@ export function acResponseArr(
   br5 -= lr54 * br4 - li54 * bi4;
   bi5 -= lr54 * bi4 + li54 * br4;
   const d5 = r_J_J * r_J_J + i_J_J * i_J_J;
-  const ir5 = r_J_J / d5;
-  const ii5 = -i_J_J / d5;
+  const q5 = 1 / d5;
+  const ir5 = r_J_J * q5;
+  const ii5 = -i_J_J * q5;
   const sr5 = br5;
   const si5 = bi5;
   const xr5 = sr5 * ir5 - si5 * ii5;
