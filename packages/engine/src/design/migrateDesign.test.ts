@@ -1,15 +1,25 @@
+import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { migrateDesign } from './migrateDesign.js';
 import { parseDesign } from './parseDesign.js';
 import { createStagePoint } from '../model/stagePoint.js';
 import { METRIC_IDS } from '../model/metrics.js';
+import { designSetup } from '../run/designSetup.js';
+import { chunkCount } from '../run/runPlan.js';
+import { mergeSetupChunks } from '../run/mergeSetupChunks.js';
+import { runSetupChunk } from '../run/runSetupChunk.js';
 
 // Version-1 documents (the engine examples and the demo seed designs as they were before format 2)
-// with every midband metric the engine gave them then, recorded from the version-1 engine.
+// with every midband metric the engine gave them then and the SHA-256 of a whole run's results
+// (6000 Sobol samples, seed 'cmp', chunks of 2048, every analysis; engine version blanked),
+// recorded from the version-1 engine.
 const snapshot = JSON.parse(
   readFileSync(new URL('./version1Snapshot.json', import.meta.url), 'utf8'),
-) as Record<string, { document: Record<string, unknown>; metrics: Record<string, number | string> }>;
+) as Record<
+  string,
+  { document: Record<string, unknown>; metrics: Record<string, number | string>; runSha256: string }
+>;
 
 describe('migrateDesign', () => {
   it('lifts version 1 to 2 and leaves everything else alone', () => {
@@ -42,6 +52,21 @@ describe('migrateDesign', () => {
     // No capacitors in version 1: the kernel writes exactly the midband columns it wrote then.
     expect(Object.keys(now)).toEqual([...METRIC_IDS]);
   });
+
+  it.each(Object.keys(snapshot))(
+    '%s (version 1): a whole run gives the same results, byte for byte',
+    (key) => {
+      const r = parseDesign(snapshot[key].document);
+      if (!r.ok) throw new Error('invalid');
+      const setup = designSetup(r.design);
+      const plan = { samples: 6000, seed: 'cmp', plan: 'sobol' as const, chunkSize: 2048 };
+      const chunks = Array.from({ length: chunkCount(plan) }, (_, i) => runSetupChunk(setup, plan, i));
+      const results = mergeSetupChunks(setup, plan, chunks);
+      // The engine version is blanked: the numbers are what must not change.
+      const text = JSON.stringify({ ...results, engineVersion: '' });
+      expect(createHash('sha256').update(text).digest('hex')).toBe(snapshot[key].runSha256);
+    },
+  );
 
   it('frequency specs need a frequency, other specs refuse one', () => {
     const base = snapshot['demo/0'].document;
