@@ -40,7 +40,14 @@ describe('sigmatail run', () => {
     expect(Object.keys(r.metrics.gainDiff.quantiles)).toEqual(['p0.135', 'p2.5', 'p50', 'p97.5', 'p99.865']);
     expect(r.metrics.gainDiff.histogram.counts.reduce((a: number, b: number) => a + b, 0)).toBeGreaterThan(0);
     expect(r.joint.wilson).toHaveLength(2);
-    expect(r.worstCase.method).toBe('corners');
+    // 8 resistors, 6 capacitors and 4 tube inputs: more than 16 varied, so a corner search.
+    expect(r.worstCase.method).toBe('search');
+    // Frequency specs report their frequency and yield like any other spec.
+    const bal20k = r.specs.find((s: { metric: string }) => s.metric === 'acBalanceDb');
+    expect(bal20k.frequency).toBe(20000);
+    expect(bal20k.yield).toBeGreaterThan(0.5);
+    expect(r.metrics['acBalanceDb@20000'].count).toBe(2000);
+    expect(r.influence.spearman['acBalanceDb@20000']).toBeDefined();
     expect(await runCommand([example, '--samples', 'many'])).toBe(2);
     expect(err.join('')).toBe('sigmatail run: --samples must be an integer 1..100000000\n');
   });

@@ -55,7 +55,7 @@ describe('parseDesign', () => {
     ['unknown metric', (d: Doc) => (d.specs = [{ metric: 'loudness', max: 1 }]), 'specs.0.metric'],
     ['positive tail supply', (d: Doc) => (d.supply.tail = 50), 'supply.tail'],
     ['wrong format', (d: Doc) => (d.format = 'other'), 'format'],
-    ['wrong version', (d: Doc) => (d.version = 2), 'version'],
+    ['wrong version', (d: Doc) => (d.version = 3), 'version'],
     ['direct-coupled without drive', (d: Doc) => (d.topology = 'direct-coupled'), 'drive'],
     [
       'empty empirical lot',

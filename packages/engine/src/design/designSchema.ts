@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { TUBE_TYPES } from '../tubes/tubeTypes.js';
-import { METRIC_IDS } from '../model/metrics.js';
+import { AC_METRIC_IDS, CORNER_METRIC_IDS, METRIC_IDS } from '../model/metrics.js';
 import { MAX_SPREAD_K, MAX_TOLERANCE_PERCENT } from '../limits.js';
 import { parseValue } from '../values/parseValue.js';
 import { RESISTOR_KINDS } from '../values/resistorKinds.js';
@@ -46,6 +46,15 @@ const partValue = z.union([
   }),
 ]);
 
+const capValue = z.union([
+  finite().positive('must be a positive number of farads'),
+  z.string().refine((s) => parseValue(s, 'capacitance').ok, {
+    message: 'not a capacitance (use farads, engineering notation like 100n, or an RKM code like 4n7)',
+  }),
+]);
+
+const tolerance = finite().min(0).lt(MAX_TOLERANCE_PERCENT, `must be below ${MAX_TOLERANCE_PERCENT} %`);
+
 /**
  * A toleranced resistor: value in ohms or as text, tolerance in percent (0 ≤ t < 100).
  *
@@ -55,11 +64,25 @@ const partValue = z.union([
 export const partSchema = z
   .object({
     value: partValue,
-    tolerance: finite().min(0).lt(MAX_TOLERANCE_PERCENT, `must be below ${MAX_TOLERANCE_PERCENT} %`),
+    tolerance,
     spread: spreadSchema,
     /** Construction (prices, ageing); metal film when absent. Optional, so older documents still read. */
     kind: z.enum(RESISTOR_KINDS).optional(),
   })
+  .refine((p) => p.spread.kind !== 'binned' || p.spread.inner < p.tolerance, {
+    message: 'the sorted-out band must be narrower than the tolerance',
+    path: ['spread', 'inner'],
+  });
+
+/**
+ * A toleranced capacitor (design format 2): value in farads or as text ('100n', '22u', '4n7'),
+ * tolerance in percent, spread as for resistors.
+ *
+ * @example
+ * capacitorSchema.parse({ value: '22n', tolerance: 10, spread: { kind: 'normal' } });
+ */
+export const capacitorSchema = z
+  .object({ value: capValue, tolerance, spread: spreadSchema })
   .refine((p) => p.spread.kind !== 'binned' || p.spread.inner < p.tolerance, {
     message: 'the sorted-out band must be narrower than the tolerance',
     path: ['spread', 'inner'],
@@ -94,17 +117,25 @@ export const tubeSpreadSchema = z.object({
 });
 
 /**
- * A limit on one metric (in the metric's SI unit); at least one of min and max.
+ * A limit on one metric (in the metric's SI unit); at least one of min and max. The frequency
+ * metrics (acGain1, acGain2, acBalanceDb, acPhaseDeg) take the frequency in hertz they apply at.
  *
  * @example
  * specSchema.parse({ metric: 'balanceDb', min: -1, max: 1 });
+ * specSchema.parse({ metric: 'acBalanceDb', frequency: 20000, min: -1, max: 1 });
  */
 export const specSchema = z
   .object({
-    metric: z.enum(METRIC_IDS),
+    metric: z.enum([...METRIC_IDS, ...CORNER_METRIC_IDS, ...AC_METRIC_IDS]),
+    /** Hz; required by the frequency metrics, refused by the others. */
+    frequency: finite().positive().max(1e7, 'must be at most 10 MHz').optional(),
     min: finite().optional(),
     max: finite().optional(),
     label: z.string().optional(),
+  })
+  .refine((s) => (s.frequency !== undefined) === (AC_METRIC_IDS as readonly string[]).includes(s.metric), {
+    message: 'frequency (Hz) is required for the frequency metrics and allowed only for them',
+    path: ['frequency'],
   })
   .refine((s) => s.min !== undefined || s.max !== undefined, {
     message: 'a spec needs min or max',
@@ -115,9 +146,15 @@ export const specSchema = z
     path: ['max'],
   });
 
+/** The current design document version; older versions are migrated on read (see migrateDesign). */
+export const DESIGN_VERSION = 2;
+
 /**
- * The versioned design document (format 'sigmatail-design', version 1): topology, supplies,
- * grid drive (direct-coupled), tube type and spread, toleranced parts and specs. Volts, ohms, percent.
+ * The versioned design document (format 'sigmatail-design', version 2): topology, supplies,
+ * grid drive (direct-coupled), tube type and spread, toleranced parts and specs. Volts, ohms,
+ * farads, hertz, percent. Version 2 added the capacitors (cin, cg2, cout1, cout2, cstray1,
+ * cstray2) and frequency specs; an absent coupling or bypass capacitor is ideal (a short for AC),
+ * an absent stray capacitance is zero, so a version-1 document keeps its midband results.
  *
  * @example
  * designSchema.safeParse(JSON.parse(text)).success;
@@ -125,7 +162,7 @@ export const specSchema = z
 export const designSchema = z
   .object({
     format: z.literal('sigmatail-design'),
-    version: z.literal(1),
+    version: z.literal(DESIGN_VERSION),
     name: z.string().min(1),
     notes: z.string().optional(),
     topology: z.enum(['cap-coupled', 'direct-coupled']),
@@ -155,6 +192,16 @@ export const designSchema = z
       rload1: partSchema.optional(),
       rload2: partSchema.optional(),
       rsource: partSchema.optional(),
+      /** Input coupling capacitor, in series with the source into grid 1 (F). */
+      cin: capacitorSchema.optional(),
+      /** Capacitor that grounds grid 2 for AC (F). */
+      cg2: capacitorSchema.optional(),
+      /** Output coupling capacitors from each plate into rload1 / rload2 (F). */
+      cout1: capacitorSchema.optional(),
+      cout2: capacitorSchema.optional(),
+      /** Stray plus next-stage input capacitance from each plate to ground (F). */
+      cstray1: capacitorSchema.optional(),
+      cstray2: capacitorSchema.optional(),
     }),
     specs: z.array(specSchema),
   })
@@ -170,8 +217,8 @@ export const designSchema = z
  * const d: Design = JSON.parse(readFileSync('examples/guitar-12ax7-cap-coupled.json', 'utf8'));
  */
 export type Design = z.infer<typeof designSchema>;
-/** One toleranced part as written. */
-export type Part = z.infer<typeof partSchema>;
+/** One toleranced part as written (resistor or capacitor). */
+export type Part = z.infer<typeof partSchema> | z.infer<typeof capacitorSchema>;
 /** A part value spread. */
 export type Spread = z.infer<typeof spreadSchema>;
 /** Tube spread and pairing. */
@@ -181,7 +228,10 @@ export type Spec = z.infer<typeof specSchema>;
 /** Part names in the design's `parts` object. */
 export type PartName = keyof Design['parts'];
 
-/** A part with its value resolved to ohms. */
+/** Capacitor part names (farads); the rest are resistors (ohms). */
+export const CAPACITOR_PARTS = ['cin', 'cg2', 'cout1', 'cout2', 'cstray1', 'cstray2'] as const;
+
+/** A part with its value resolved to ohms (resistors) or farads (capacitors). */
 export type ResolvedPart = Omit<Part, 'value'> & { value: number };
 /**
  * The design with every part value resolved to a number of ohms.

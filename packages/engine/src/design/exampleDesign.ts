@@ -12,7 +12,7 @@ const part = (value: number, tolerance = 5) => ({ value, tolerance, spread: { ki
 export function buildDesign(overrides: Partial<ResolvedDesign> = {}): ResolvedDesign {
   return {
     format: 'sigmatail-design',
-    version: 1,
+    version: 2,
     name: 'New splitter',
     topology: 'cap-coupled',
     supply: { bPlus: 320, tail: 0 },

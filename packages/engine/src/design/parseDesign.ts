@@ -1,5 +1,13 @@
-import { designSchema, type Design, type ResolvedDesign, type ResolvedPart } from './designSchema.js';
-import { parseValue } from '../values/parseValue.js';
+import {
+  CAPACITOR_PARTS,
+  designSchema,
+  type Design,
+  type Part,
+  type ResolvedDesign,
+  type ResolvedPart,
+} from './designSchema.js';
+import { parseValue, type ValueKind } from '../values/parseValue.js';
+import { migrateDesign } from './migrateDesign.js';
 
 /** One validation problem: a dotted path to the field and what is wrong with it. */
 export interface DesignIssue {
@@ -12,7 +20,8 @@ export type ParseDesignResult = { ok: true; design: ResolvedDesign } | { ok: fal
 
 /**
  * Validates an unknown value (parsed JSON) as a design document and resolves every part value
- * to ohms. Never throws: every problem comes back with the path of the field it concerns.
+ * to ohms (resistors) or farads (capacitors). Older document versions are migrated first
+ * (see migrateDesign). Never throws: every problem comes back with the path of the field it concerns.
  *
  * @example
  * const r = parseDesign(JSON.parse(text));
@@ -20,7 +29,7 @@ export type ParseDesignResult = { ok: true; design: ResolvedDesign } | { ok: fal
  * else console.log(r.errors); // [{ path: 'parts.rk.tolerance', message: 'must be below 100 %' }]
  */
 export function parseDesign(input: unknown): ParseDesignResult {
-  const parsed = designSchema.safeParse(input);
+  const parsed = designSchema.safeParse(migrateDesign(input));
   if (!parsed.success) {
     const errors = parsed.error.issues.map((i) => ({
       path: i.path.map(String).join('.') || '(document)',
@@ -31,10 +40,10 @@ export function parseDesign(input: unknown): ParseDesignResult {
   return { ok: true, design: resolveDesign(parsed.data) };
 }
 
-function resolvePart(part: Design['parts']['rl1']): ResolvedPart {
+function resolvePart(part: Part, kind: ValueKind = 'resistance'): ResolvedPart {
   const v = part.value;
   // The schema already refused unparseable text, so this cannot fail here.
-  const value = typeof v === 'number' ? v : (parseValue(v, 'resistance') as { value: number }).value;
+  const value = typeof v === 'number' ? v : (parseValue(v, kind) as { value: number }).value;
   return { ...part, value };
 }
 
@@ -51,5 +60,9 @@ function resolveDesign(d: Design): ResolvedDesign {
   if (p.rload1) parts.rload1 = resolvePart(p.rload1);
   if (p.rload2) parts.rload2 = resolvePart(p.rload2);
   if (p.rsource) parts.rsource = resolvePart(p.rsource);
+  for (const name of CAPACITOR_PARTS) {
+    const c = p[name];
+    if (c) parts[name] = resolvePart(c, 'capacitance');
+  }
   return { ...d, parts };
 }

@@ -1,9 +1,9 @@
 /** Unit of a metric (SI; '' for dimensionless ratios and flags). */
-export type MetricUnit = 'V' | 'A' | 'W' | 'Ω' | 'S' | 'dB' | '';
+export type MetricUnit = 'V' | 'A' | 'W' | 'Ω' | 'S' | 'dB' | 'Hz' | '°' | '';
 
 /** Description of one metric the stage kernel writes per sample. */
 export interface MetricInfo {
-  id: MetricId;
+  id: MetricId | CornerMetricId | AcMetricId;
   label: string;
   unit: MetricUnit;
   description: string;
@@ -50,6 +50,63 @@ export const METRIC_IDS = [
 
 /** One of {@link METRIC_IDS}. */
 export type MetricId = (typeof METRIC_IDS)[number];
+
+/**
+ * The −3 dB points of each output (Hz). The kernel writes them after {@link METRIC_IDS} when the
+ * design uses the frequency analysis (any capacitor part or frequency spec), so designs without
+ * capacitors keep exactly their midband columns.
+ *
+ * @example
+ * CORNER_METRIC_IDS[2]; // 'fHigh1'
+ */
+export const CORNER_METRIC_IDS = ['fLow1', 'fLow2', 'fHigh1', 'fHigh2'] as const;
+
+/** One of {@link CORNER_METRIC_IDS}. */
+export type CornerMetricId = (typeof CORNER_METRIC_IDS)[number];
+
+/**
+ * Metrics that apply at one frequency (grid 1 driven, grid 2 held by its bypass capacitor). The
+ * kernel writes them as columns `id@f` (f in Hz; see {@link acColumnId}) for every spec frequency
+ * and every {@link BAND_FREQUENCIES} entry (balance only).
+ *
+ * @example
+ * acColumnId('acBalanceDb', 20000); // 'acBalanceDb@20000'
+ */
+export const AC_METRIC_IDS = ['acGain1', 'acGain2', 'acBalanceDb', 'acPhaseDeg'] as const;
+
+/** One of {@link AC_METRIC_IDS}. */
+export type AcMetricId = (typeof AC_METRIC_IDS)[number];
+
+/**
+ * Frequencies (Hz) of the balance band every run reports (1-2-5 steps, 10 Hz to 100 kHz): the
+ * balance at each is a kernel column, so its median and 2.5/97.5 % envelope merge exactly over chunks.
+ *
+ * @example
+ * BAND_FREQUENCIES[0]; // 10
+ */
+export const BAND_FREQUENCIES: readonly number[] = [
+  10, 20, 50, 100, 200, 500, 1e3, 2e3, 5e3, 1e4, 2e4, 5e4, 1e5,
+];
+
+/**
+ * The kernel column id of a frequency metric at f hertz.
+ *
+ * @example
+ * acColumnId('acPhaseDeg', 20); // 'acPhaseDeg@20'
+ */
+export function acColumnId(metric: AcMetricId, frequency: number): string {
+  return `${metric}@${frequency}`;
+}
+
+/**
+ * The kernel column a spec reads: the metric id, or `id@f` for a frequency metric.
+ *
+ * @example
+ * specColumnId({ metric: 'acBalanceDb', frequency: 2e4 }); // 'acBalanceDb@20000'
+ */
+export function specColumnId(spec: { metric: string; frequency?: number }): string {
+  return spec.frequency === undefined ? spec.metric : `${spec.metric}@${spec.frequency}`;
+}
 
 const INFO: Record<MetricId, Omit<MetricInfo, 'id'>> = {
   a11: { label: 'A11', unit: '', description: 'Gain from grid 1 input to output 1 (plate 1), signed' },
@@ -110,3 +167,90 @@ const INFO: Record<MetricId, Omit<MetricInfo, 'id'>> = {
  * METRICS.find((m) => m.id === 'zout1')?.unit; // 'Ω'
  */
 export const METRICS: readonly MetricInfo[] = METRIC_IDS.map((id) => ({ id, ...INFO[id] }));
+
+const CORNER_INFO: Record<CornerMetricId, Omit<MetricInfo, 'id'>> = {
+  fLow1: {
+    label: 'Low −3 dB, out 1',
+    unit: 'Hz',
+    description:
+      'Frequency below midband where |vo1/vi1| is 3 dB under its midband value (0 when every coupling is ideal)',
+  },
+  fLow2: {
+    label: 'Low −3 dB, out 2',
+    unit: 'Hz',
+    description: 'Frequency below midband where |vo2/vi1| is 3 dB under its midband value',
+  },
+  fHigh1: {
+    label: 'High −3 dB, out 1',
+    unit: 'Hz',
+    description: 'Frequency above midband where |vo1/vi1| is 3 dB under its midband value',
+  },
+  fHigh2: {
+    label: 'High −3 dB, out 2',
+    unit: 'Hz',
+    description: 'Frequency above midband where |vo2/vi1| is 3 dB under its midband value',
+  },
+};
+
+/**
+ * Descriptions of the −3 dB point metrics, in kernel order.
+ *
+ * @example
+ * CORNER_METRICS[0].unit; // 'Hz'
+ */
+export const CORNER_METRICS: readonly MetricInfo[] = CORNER_METRIC_IDS.map((id) => ({
+  id,
+  ...CORNER_INFO[id],
+}));
+
+const AC_INFO: Record<AcMetricId, Omit<MetricInfo, 'id'>> = {
+  acGain1: { label: 'Gain 1', unit: '', description: '|vo1/vi1| at the spec frequency (source to plate 1)' },
+  acGain2: { label: 'Gain 2', unit: '', description: '|vo2/vi1| at the spec frequency (source to plate 2)' },
+  acBalanceDb: {
+    label: 'Balance',
+    unit: 'dB',
+    description: '20·log10(|vo2| / |vo1|) at the spec frequency; 0 dB is perfect balance',
+  },
+  acPhaseDeg: {
+    label: 'Phase error',
+    unit: '°',
+    description:
+      'Phase of vo2 relative to −vo1 at the spec frequency, in (−180°, 180°]; 0° is exact antiphase',
+  },
+};
+
+/**
+ * Descriptions of the frequency metrics (spec metric ids that take a frequency).
+ *
+ * @example
+ * AC_METRICS.map((m) => m.id); // ['acGain1', 'acGain2', 'acBalanceDb', 'acPhaseDeg']
+ */
+export const AC_METRICS: readonly MetricInfo[] = AC_METRIC_IDS.map((id) => ({ id, ...AC_INFO[id] }));
+
+/**
+ * Label, unit and description of any kernel column, including `id@f` frequency columns
+ * ('Balance at 20 kHz'); unknown ids come back with the id as label.
+ *
+ * @example
+ * describeMetric('acBalanceDb@20000').label; // 'Balance at 20 kHz'
+ */
+export function describeMetric(id: string): Omit<MetricInfo, 'id'> {
+  const at = id.indexOf('@');
+  if (at > 0) {
+    const base = AC_INFO[id.slice(0, at) as AcMetricId];
+    const f = Number(id.slice(at + 1));
+    if (base) return { ...base, label: `${base.label} at ${formatHz(f)}` };
+  }
+  return (
+    INFO[id as MetricId] ??
+    CORNER_INFO[id as CornerMetricId] ??
+    AC_INFO[id as AcMetricId] ?? { label: id, unit: '', description: '' }
+  );
+}
+
+/** '20 Hz', '1 kHz', '20 kHz', '1.5 MHz'. */
+function formatHz(f: number): string {
+  if (f >= 1e6) return `${Number((f / 1e6).toPrecision(4))} MHz`;
+  if (f >= 1e3) return `${Number((f / 1e3).toPrecision(4))} kHz`;
+  return `${Number(f.toPrecision(4))} Hz`;
+}

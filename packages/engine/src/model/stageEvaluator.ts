@@ -15,6 +15,13 @@ export interface StageInputs {
   rload1: number;
   rload2: number;
   rsource: number;
+  /** Capacitors (F): coupling and bypass Infinity when ideal, stray 0 when absent. */
+  cin: number;
+  cg2: number;
+  cout1: number;
+  cout2: number;
+  cstray1: number;
+  cstray2: number;
   mu1: number;
   mu2: number;
   perv1: number;
@@ -35,8 +42,9 @@ export interface StageContext {
 }
 
 /**
- * Nominal kernel inputs of a design: part values in ohms, absent loads = Infinity,
- * absent source resistance = 0, tube multipliers 1.
+ * Nominal kernel inputs of a design: part values in ohms and farads, absent loads = Infinity,
+ * absent source resistance = 0, absent coupling/bypass capacitors = Infinity (ideal), absent
+ * stray capacitances = 0, tube multipliers 1.
  *
  * @example
  * nominalStageInputs(design).rl1; // 100000
@@ -55,6 +63,12 @@ export function nominalStageInputs(d: ResolvedDesign): StageInputs {
     rload1: p.rload1?.value ?? Number.POSITIVE_INFINITY,
     rload2: p.rload2?.value ?? Number.POSITIVE_INFINITY,
     rsource: p.rsource?.value ?? 0,
+    cin: p.cin?.value ?? Number.POSITIVE_INFINITY,
+    cg2: p.cg2?.value ?? Number.POSITIVE_INFINITY,
+    cout1: p.cout1?.value ?? Number.POSITIVE_INFINITY,
+    cout2: p.cout2?.value ?? Number.POSITIVE_INFINITY,
+    cstray1: p.cstray1?.value ?? 0,
+    cstray2: p.cstray2?.value ?? 0,
     ...{ mu1: 1, mu2: 1, perv1: 1, perv2: 1 },
   };
 }

@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { buildDesign } from '../design/exampleDesign.js';
 import type { ResolvedDesign } from '../design/designSchema.js';
 import { createStageKernel, INPUTS, METRIC_IDS } from './stageKernel.js';
+import { BAND_FREQUENCIES } from './metrics.js';
+import { acResponse } from './acResponse.js';
 import { nodalGains } from './nodalGains.js';
 import { korenCurrent } from '../tubes/korenTriode.js';
 import { TUBE_CATALOG } from '../tubes/tubeCatalog.js';
@@ -54,7 +56,17 @@ describe('createStageKernel', () => {
   it('lists inputs and metrics in contract order with nominal inputs (absent loads ∞, source 0)', () => {
     const k = createStageKernel(buildDesign());
     expect(k.inputs).toEqual(INPUTS);
+    // No capacitors, no frequency specs: exactly the midband columns.
     expect(k.metrics).toEqual(METRIC_IDS);
+    const withCaps = buildDesign();
+    withCaps.parts.cout1 = { value: 22e-9, tolerance: 10, spread: { kind: 'normal' } };
+    withCaps.specs = [{ metric: 'acPhaseDeg', frequency: 15, max: 5 }];
+    expect(createStageKernel(withCaps).metrics).toEqual([
+      ...METRIC_IDS,
+      ...['fLow1', 'fLow2', 'fHigh1', 'fHigh2'],
+      ...['acGain1@15', 'acGain2@15', 'acBalanceDb@15', 'acPhaseDeg@15'],
+      ...BAND_FREQUENCIES.map((f) => `acBalanceDb@${f}`),
+    ]);
     const nom = k.nominalInputs();
     expect(nom[inp('rl1')]).toBe(82e3);
     expect(nom[inp('rload1')]).toBe(Infinity);
@@ -107,7 +119,7 @@ describe('createStageKernel', () => {
     const a = run(design, 1, 0);
     const b = run(design, 1, 0, { dcPerSample: false });
     for (let m = 0; m < METRIC_IDS.length; m++)
-      expect(Math.abs(b.out[m][0] / a.out[m][0] - 1)).toBeLessThan(1e-9);
+      if (a.out[m][0] !== b.out[m][0]) expect(Math.abs(b.out[m][0] / a.out[m][0] - 1)).toBeLessThan(1e-9);
   });
 
   it('marks samples without a bias point invalid (valid = 0, NaN elsewhere) and keeps going', () => {
@@ -145,5 +157,58 @@ describe('createStageKernel', () => {
     k.evaluate(inputs, 2, out);
     expect(out[col('a11')][1]).toBeLessThan(0);
     expect(out[col('a11')][2]).toBe(-7);
+  });
+});
+
+describe('createStageKernel frequency columns', () => {
+  const capDesign = (): ResolvedDesign => {
+    const d = loaded();
+    const cap = (value: number) => ({ value, tolerance: 10, spread: { kind: 'normal' as const } });
+    Object.assign(d.parts, {
+      ...{ cin: cap(47e-9), cg2: cap(220e-9), cout1: cap(22e-9), cout2: cap(22e-9) },
+      ...{ cstray1: cap(100e-12), cstray2: cap(120e-12) },
+    });
+    d.specs = [{ metric: 'acBalanceDb', frequency: 20e3, min: -1, max: 1 }];
+    return d;
+  };
+
+  it('per sample: the frequency metrics are those of the sample’s own circuit, the −3 dB points halve the power', () => {
+    const d = capDesign();
+    const { k, inputs, out } = run(d, 40, 0.3);
+    const at = (id: string, s: number) => out[k.metrics.indexOf(id)][s];
+    const x = (id: (typeof INPUTS)[number], s: number) => inputs[inp(id)][s];
+    const tube = TUBE_CATALOG[d.tube.type].capacitance;
+    for (let s = 0; s < 40; s++) {
+      if (at('valid', s) !== 1) continue;
+      const circuit = {
+        ...{ capCoupled: true, leakToGrid1: false, mu1: at('mu1', s), mu2: at('mu2', s) },
+        ...{ rp1: at('rp1', s), rp2: at('rp2', s), rl1: x('rl1', s), rl2: x('rl2', s) },
+        ...{ rk: x('rk', s), rt: x('rt', s), rg1: x('rg1', s), rg2: x('rg2', s) },
+        ...{ rload1: x('rload1', s), rload2: x('rload2', s), rsource: x('rsource', s) },
+        ...{ cin: x('cin', s), cg2: x('cg2', s), cout1: x('cout1', s), cout2: x('cout2', s) },
+        ...{ cstray1: x('cstray1', s), cstray2: x('cstray2', s) },
+        ...{
+          cgk1: tube.cin,
+          cgk2: tube.cin,
+          cgp1: tube.cgp,
+          cgp2: tube.cgp,
+          cpk1: tube.cout,
+          cpk2: tube.cout,
+        },
+      };
+      const h = acResponse(circuit, 20e3);
+      const bal = 20 * Math.log10(Math.hypot(h.h2.re, h.h2.im) / Math.hypot(h.h1.re, h.h1.im));
+      expect(at('acBalanceDb@20000', s)).toBeCloseTo(bal, 9);
+      expect(at('acGain1@20000', s)).toBeCloseTo(Math.hypot(h.h1.re, h.h1.im), 9);
+      for (const [id, which, ref] of [
+        ['fLow1', 'h1', at('a11', s)],
+        ['fLow2', 'h2', at('a12', s)],
+        ['fHigh1', 'h1', at('a11', s)],
+        ['fHigh2', 'h2', at('a12', s)],
+      ] as const) {
+        const r = acResponse(circuit, at(id, s))[which];
+        expect(Math.abs((r.re ** 2 + r.im ** 2) / ref ** 2 - 0.5)).toBeLessThan(1e-5);
+      }
+    }
   });
 });

@@ -1,5 +1,36 @@
 import type { ResolvedDesign } from '../design/designSchema.js';
-import { METRIC_IDS, METRICS, type MetricId, type MetricInfo } from './metrics.js';
+import {
+  acColumnId,
+  BAND_FREQUENCIES,
+  CORNER_METRIC_IDS,
+  METRIC_IDS,
+  METRICS,
+  type AcMetricId,
+  type MetricId,
+  type MetricInfo,
+} from './metrics.js';
+import {
+  AC_CG2,
+  AC_CGK1,
+  AC_CGK2,
+  AC_CGP1,
+  AC_CGP2,
+  AC_CIN,
+  AC_COUT1,
+  AC_COUT2,
+  AC_CPK1,
+  AC_CPK2,
+  AC_CSTRAY1,
+  AC_CSTRAY2,
+  AC_SLOTS,
+  acResponseArr,
+  H1_IM,
+  H1_RE,
+  H2_IM,
+  H2_RE,
+  H_SLOTS,
+} from './acResponse.js';
+import { cornerFrequencyArr, cornerSlopeArr } from './cornerFrequency.js';
 import { createBiasPredictor } from './biasPredictor.js';
 import { closedFormGainsArr } from './closedFormGains.js';
 import {
@@ -25,7 +56,6 @@ import {
   SS_RP2,
   SS_RSOURCE,
   SS_RT,
-  SS_SLOTS,
 } from './reducedNodalGains.js';
 import {
   createStageContext,
@@ -48,7 +78,8 @@ export { METRICS, METRIC_IDS, type MetricId, type MetricInfo };
 /**
  * Kernel inputs in column order. mu1/mu2 multiply the section's model mu (nominal 1); perv1/perv2
  * multiply its plate-current scale (nominal 1). Resistances in ohms; absent loads are Infinity,
- * an absent source resistance is 0.
+ * an absent source resistance is 0. Capacitors in farads; absent coupling and bypass capacitors
+ * are Infinity (ideal), absent stray capacitances 0.
  *
  * @example
  * INPUTS.indexOf('rk'); // 2
@@ -67,6 +98,12 @@ export const INPUTS = [
   'mu2',
   'perv1',
   'perv2',
+  'cin',
+  'cg2',
+  'cout1',
+  'cout2',
+  'cstray1',
+  'cstray2',
 ] as const;
 
 /** One of {@link INPUTS}. */
@@ -81,8 +118,12 @@ export type InputId = (typeof INPUTS)[number];
 export interface StageKernel {
   /** Input columns, {@link INPUTS} order. */
   readonly inputs: readonly InputId[];
-  /** Output columns, {@link METRIC_IDS} order. */
-  readonly metrics: readonly MetricId[];
+  /**
+   * Output columns: {@link METRIC_IDS} in order, then the frequency columns `id@f` (see
+   * acColumnId): all four frequency metrics at each spec frequency, and the balance at each
+   * {@link BAND_FREQUENCIES} entry when the band is on.
+   */
+  readonly metrics: readonly string[];
   /** One nominal value per input. */
   nominalInputs(): Float64Array;
   /** In place, allocation-free: inputs[i][s] is input i of sample s; writes out[m][s] for s < n. */
@@ -102,7 +143,10 @@ const SAMPLE_STEP_TOL = 1e-6;
  * `dcPerSample: false` the bias is solved once at nominal; per sample only the small signal is
  * solved, with mu scaled by the mu multiplier and rp divided by the perveance multiplier
  * (a first-order approximation). A sample without a valid bias point gets valid = 0 and NaN
- * elsewhere.
+ * elsewhere. Then the frequency response (complex nodal solve with the capacitors): the four
+ * frequency metrics at each spec frequency, and, when the design uses the frequency analysis
+ * (see usesFrequencyAnalysis; `corners` / `band` override), the −3 dB points (secant from the
+ * nominal corners) and the balance at each BAND_FREQUENCIES entry.
  *
  * @example
  * const k = createStageKernel(design);
@@ -110,8 +154,16 @@ const SAMPLE_STEP_TOL = 1e-6;
  * const out = k.metrics.map(() => new Float64Array(n));
  * k.evaluate(inputs, n, out); // out[METRIC_IDS.indexOf('balanceDb')][s] in dB
  */
-export function createStageKernel(design: ResolvedDesign, options?: { dcPerSample?: boolean }): StageKernel {
+export function createStageKernel(
+  design: ResolvedDesign,
+  options?: { dcPerSample?: boolean; corners?: boolean; band?: boolean },
+): StageKernel {
   const dcPerSample = options?.dcPerSample ?? true;
+  const analysis = usesFrequencyAnalysis(design);
+  const corners = options?.corners ?? analysis;
+  const cornerIds: readonly string[] = corners ? CORNER_METRIC_IDS : [];
+  const ac = acColumns(design, options?.band ?? analysis, METRIC_IDS.length + cornerIds.length);
+  const metrics: readonly string[] = [...METRIC_IDS, ...cornerIds, ...ac.ids];
   const ctx = createStageContext(design);
   const nominal = nominalStageInputs(design);
   const nominalArray = Float64Array.from(INPUTS.map((id) => nominal[id]));
@@ -122,8 +174,29 @@ export function createStageKernel(design: ResolvedDesign, options?: { dcPerSampl
   const heater = ctx.heater;
   // Per-sample scratch: DC inputs, small-signal circuit, gains (see the *Arr solvers).
   const dcv = new Float64Array(DC_SLOTS);
-  const v = new Float64Array(SS_SLOTS);
+  const v = new Float64Array(AC_SLOTS);
   const g = new Float64Array(G_SLOTS);
+  const h = new Float64Array(H_SLOTS);
+  // Tube interelectrode capacitances (catalog, per section; no spread).
+  const caps = ctx.tube.capacitance;
+  v[AC_CGK1] = caps.cin;
+  v[AC_CGK2] = caps.cin;
+  v[AC_CGP1] = caps.cgp;
+  v[AC_CGP2] = caps.cgp;
+  v[AC_CPK1] = caps.cout;
+  v[AC_CPK2] = caps.cout;
+  // Nominal −3 dB points: the per-sample corner searches start from them.
+  const nomCorners = nominalCorners(ctx, nominal, nb, v, h, corners);
+  const lowCorners =
+    corners &&
+    !(
+      nominal.cin === Number.POSITIVE_INFINITY &&
+      nominal.cg2 === Number.POSITIVE_INFINITY &&
+      nominal.cout1 === Number.POSITIVE_INFINITY &&
+      nominal.cout2 === Number.POSITIVE_INFINITY
+    );
+  const acFreq = ac.frequencies;
+  const acCol = ac.columns;
 
   // Slot numbers as locals: an imported binding can cost a getter call per use (transpiled
   // modules), which the per-sample loop must not pay.
@@ -159,6 +232,8 @@ export function createStageKernel(design: ResolvedDesign, options?: { dcPerSampl
   const nodalGains = reducedNodalGainsArr;
   const closedGains = closedFormGainsArr;
   const solveBias = solveStageBiasArr;
+  const acResponse = acResponseArr;
+  const corner = cornerFrequencyArr;
 
   function evaluate(inputs: readonly Float64Array[], n: number, out: readonly Float64Array[]): void {
     const bp = ctx.bp;
@@ -175,6 +250,18 @@ export function createStageKernel(design: ResolvedDesign, options?: { dcPerSampl
     const i_mu2 = inputs[10];
     const i_perv1 = inputs[11];
     const i_perv2 = inputs[12];
+    const i_cin = inputs[13];
+    const i_cg2 = inputs[14];
+    const i_cout1 = inputs[15];
+    const i_cout2 = inputs[16];
+    const i_cstray1 = inputs[17];
+    const i_cstray2 = inputs[18];
+    // Corner columns follow METRIC_IDS when on (unused otherwise).
+    const o_fLow1 = out[corners ? METRIC_IDS.length : 0];
+    const o_fLow2 = out[corners ? METRIC_IDS.length + 1 : 0];
+    const o_fHigh1 = out[corners ? METRIC_IDS.length + 2 : 0];
+    const o_fHigh2 = out[corners ? METRIC_IDS.length + 3 : 0];
+    const nf = acFreq.length;
     const o_a11 = out[col('a11')];
     const o_a12 = out[col('a12')];
     const o_a21 = out[col('a21')];
@@ -224,7 +311,16 @@ export function createStageKernel(design: ResolvedDesign, options?: { dcPerSampl
       const perv1 = i_perv1[s];
       const perv2 = i_perv2[s];
       // Small-signal-only parts must be usable too (Infinity is fine for the loads).
-      if (!(rg1 > 0 && rg2 > 0 && rload1 > 0 && rload2 > 0 && rsource >= 0)) {
+      const cin = i_cin[s];
+      const cg2 = i_cg2[s];
+      const cout1 = i_cout1[s];
+      const cout2 = i_cout2[s];
+      const cstray1 = i_cstray1[s];
+      const cstray2 = i_cstray2[s];
+      if (
+        !(rg1 > 0 && rg2 > 0 && rload1 > 0 && rload2 > 0 && rsource >= 0) ||
+        !(cin > 0 && cg2 > 0 && cout1 > 0 && cout2 > 0 && cstray1 >= 0 && cstray2 >= 0)
+      ) {
         writeInvalid(out, s);
         continue;
       }
@@ -314,16 +410,177 @@ export function createStageKernel(design: ResolvedDesign, options?: { dcPerSampl
       o_rp2[s] = rp2;
       o_mu1[s] = mu1;
       o_mu2[s] = mu2;
+      // Frequency response: the capacitors join the small-signal circuit already in v.
+      v[AC_CIN] = cin;
+      v[AC_CG2] = cg2;
+      v[AC_COUT1] = cout1;
+      v[AC_COUT2] = cout2;
+      v[AC_CSTRAY1] = cstray1;
+      v[AC_CSTRAY2] = cstray2;
+      for (let fi = 0; fi < nf; fi++) {
+        const ok = acResponse(capCoupled, leakToGrid1, v, acFreq[fi], h);
+        writeAcColumns(out, acCol, fi, s, ok, h);
+      }
+      if (corners) {
+        const ref1 = Math.abs(a11);
+        const ref2 = Math.abs(a12);
+        o_fHigh1[s] = corner(capCoupled, leakToGrid1, v, 1, ref1, 'high', nomCorners[2], nomCorners[6], h);
+        o_fHigh2[s] = corner(capCoupled, leakToGrid1, v, 2, ref2, 'high', nomCorners[3], nomCorners[7], h);
+        if (lowCorners) {
+          o_fLow1[s] = corner(capCoupled, leakToGrid1, v, 1, ref1, 'low', nomCorners[0], nomCorners[4], h);
+          o_fLow2[s] = corner(capCoupled, leakToGrid1, v, 2, ref2, 'low', nomCorners[1], nomCorners[5], h);
+        } else {
+          o_fLow1[s] = 0;
+          o_fLow2[s] = 0;
+        }
+      }
       o_valid[s] = 1;
     }
   }
 
   return {
     inputs: INPUTS,
-    metrics: METRIC_IDS,
+    metrics,
     nominalInputs: () => nominalArray.slice(),
     evaluate,
   };
+}
+
+/**
+ * Whether a design uses the frequency analysis (−3 dB points and the balance band): it has a
+ * capacitor part or a spec on a frequency metric. Without, the kernel writes only the midband
+ * columns, exactly as before capacitors existed.
+ *
+ * @example
+ * usesFrequencyAnalysis(buildDesign()); // false
+ */
+export function usesFrequencyAnalysis(design: ResolvedDesign): boolean {
+  const p = design.parts;
+  const caps = p.cin ?? p.cg2 ?? p.cout1 ?? p.cout2 ?? p.cstray1 ?? p.cstray2;
+  const corner = (CORNER_METRIC_IDS as readonly string[]).includes.bind(CORNER_METRIC_IDS);
+  return caps !== undefined || design.specs.some((s) => s.frequency !== undefined || corner(s.metric));
+}
+
+/** Column slots per frequency: gain 1, gain 2, balance, phase (-1 = not a column). */
+const AC_PER_FREQ = 4;
+
+/**
+ * The frequency columns of a design: distinct frequencies (spec frequencies, then the band), and
+ * per frequency the output column of each frequency metric or -1.
+ */
+function acColumns(
+  design: ResolvedDesign,
+  band: boolean,
+  first: number,
+): { ids: string[]; frequencies: Float64Array; columns: Int32Array } {
+  const wanted: { metric: AcMetricId; f: number }[] = [];
+  const AC: readonly AcMetricId[] = ['acGain1', 'acGain2', 'acBalanceDb', 'acPhaseDeg'];
+  for (const spec of design.specs)
+    if (spec.frequency !== undefined) for (const m of AC) wanted.push({ metric: m, f: spec.frequency });
+  if (band) for (const f of BAND_FREQUENCIES) wanted.push({ metric: 'acBalanceDb', f });
+  const freqs: number[] = [];
+  const ids: string[] = [];
+  const cols: number[] = [];
+  for (const { metric, f } of wanted) {
+    const id = acColumnId(metric, f);
+    if (ids.includes(id)) continue;
+    let fi = freqs.indexOf(f);
+    if (fi < 0) {
+      fi = freqs.length;
+      freqs.push(f);
+      cols.push(-1, -1, -1, -1);
+    }
+    cols[fi * AC_PER_FREQ + AC.indexOf(metric)] = first + ids.length;
+    ids.push(id);
+  }
+  return { ids, frequencies: Float64Array.from(freqs), columns: Int32Array.from(cols) };
+}
+
+/** Writes the frequency columns of frequency index fi for sample s from the response in h. */
+function writeAcColumns(
+  out: readonly Float64Array[],
+  columns: Int32Array,
+  fi: number,
+  s: number,
+  ok: boolean,
+  h: Float64Array,
+): void {
+  const h1r = ok ? h[H1_RE] : Number.NaN;
+  const h1i = ok ? h[H1_IM] : Number.NaN;
+  const h2r = ok ? h[H2_RE] : Number.NaN;
+  const h2i = ok ? h[H2_IM] : Number.NaN;
+  const m1 = h1r * h1r + h1i * h1i;
+  const m2 = h2r * h2r + h2i * h2i;
+  const base = fi * AC_PER_FREQ;
+  let c = columns[base];
+  if (c >= 0) out[c][s] = Math.sqrt(m1);
+  c = columns[base + 1];
+  if (c >= 0) out[c][s] = Math.sqrt(m2);
+  c = columns[base + 2];
+  if (c >= 0) out[c][s] = 10 * Math.log10(m2 / m1);
+  c = columns[base + 3];
+  // Phase of vo2 against −vo1: arg(vo2 · conj(−vo1)).
+  if (c >= 0) out[c][s] = (Math.atan2(-(h2i * h1r - h2r * h1i), -(h2r * h1r + h2i * h1i)) * 180) / Math.PI;
+}
+
+/**
+ * Nominal −3 dB points [fLow1, fLow2, fHigh1, fHigh2] (Hz) by a bracketed search from 1 kHz, then
+ * the response slope at each (the per-sample secant's first step; 0 = none). A corner that does
+ * not exist at nominal is replaced by 1 kHz with slope 0 (a start point must be finite). Fills v
+ * with the nominal circuit.
+ */
+function nominalCorners(
+  ctx: ReturnType<typeof createStageContext>,
+  x: ReturnType<typeof nominalStageInputs>,
+  nb: { status: string; gm1: number; gm2: number; ga1: number; ga2: number },
+  v: Float64Array,
+  h: Float64Array,
+  on: boolean,
+): Float64Array {
+  const out = Float64Array.of(1e3, 1e3, 1e3, 1e3, 0, 0, 0, 0);
+  if (!on || nb.status !== 'ok') return out;
+  v[SS_RP1] = 1 / nb.ga1;
+  v[SS_RP2] = 1 / nb.ga2;
+  v[SS_MU1] = nb.gm1 / nb.ga1;
+  v[SS_MU2] = nb.gm2 / nb.ga2;
+  v[SS_RL1] = x.rl1;
+  v[SS_RL2] = x.rl2;
+  v[SS_RK] = x.rk;
+  v[SS_RT] = x.rt;
+  v[SS_RG1] = x.rg1;
+  v[SS_RG2] = x.rg2;
+  v[SS_RLOAD1] = x.rload1;
+  v[SS_RLOAD2] = x.rload2;
+  v[SS_RSOURCE] = x.rsource;
+  v[AC_CIN] = x.cin;
+  v[AC_CG2] = x.cg2;
+  v[AC_COUT1] = x.cout1;
+  v[AC_COUT2] = x.cout2;
+  v[AC_CSTRAY1] = x.cstray1;
+  v[AC_CSTRAY2] = x.cstray2;
+  const g = new Float64Array(G_SLOTS);
+  reducedNodalGainsArr(ctx.ss.capCoupled, ctx.ss.leakToGrid1, v, g);
+  const ref = [Math.abs(g[G_A11]), Math.abs(g[G_A12])];
+  const { capCoupled, leakToGrid1 } = ctx.ss;
+  for (let i = 0; i < 4; i++) {
+    const which = i % 2 === 0 ? 1 : 2;
+    const f = cornerFrequencyArr(
+      capCoupled,
+      leakToGrid1,
+      v,
+      which,
+      ref[which - 1],
+      i < 2 ? 'low' : 'high',
+      1e3,
+      0,
+      h,
+    );
+    if (Number.isFinite(f) && f > 0) {
+      out[i] = f;
+      out[i + 4] = cornerSlopeArr(capCoupled, leakToGrid1, v, which, f, h);
+    }
+  }
+  return out;
 }
 
 function writeInvalid(out: readonly Float64Array[], s: number): void {

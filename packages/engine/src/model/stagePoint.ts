@@ -1,9 +1,12 @@
 import type { ResolvedDesign } from '../design/designSchema.js';
 import { createStageKernel, INPUTS, type InputId } from './stageKernel.js';
-import { METRIC_IDS, type MetricId } from './metrics.js';
+import type { MetricId } from './metrics.js';
 
-/** Every metric of one evaluated point (SI units; NaN when there is no valid bias). */
-export type MetricValues = Record<MetricId, number>;
+/**
+ * Every metric of one evaluated point (SI units; NaN when there is no valid bias), including the
+ * design's frequency columns (`acBalanceDb@20000`, ...).
+ */
+export type MetricValues = Record<MetricId, number> & Record<string, number>;
 
 /**
  * A single-point evaluator of a design: metrics at nominal, or with some inputs overridden.
@@ -19,10 +22,10 @@ export function createStagePoint(
   const kernel = createStageKernel(design);
   const nominal = kernel.nominalInputs();
   const inputs = INPUTS.map(() => new Float64Array(1));
-  const out = METRIC_IDS.map(() => new Float64Array(1));
+  const out = kernel.metrics.map(() => new Float64Array(1));
   return (overrides = {}) => {
     INPUTS.forEach((id, i) => (inputs[i][0] = overrides[id] ?? nominal[i]));
     kernel.evaluate(inputs, 1, out);
-    return Object.fromEntries(METRIC_IDS.map((id, m) => [id, out[m][0]])) as MetricValues;
+    return Object.fromEntries(kernel.metrics.map((id, m) => [id, out[m][0]])) as MetricValues;
   };
 }

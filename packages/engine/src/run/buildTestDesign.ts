@@ -10,7 +10,7 @@ import { parseDesign } from '../design/parseDesign.js';
 export function buildTestDesign(overrides: Record<string, unknown> = {}): ResolvedDesign {
   const doc = {
     format: 'sigmatail-design',
-    version: 1,
+    version: 2,
     name: 'Bench splitter',
     topology: 'cap-coupled',
     supply: { bPlus: 330, tail: 0 },

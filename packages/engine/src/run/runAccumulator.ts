@@ -101,6 +101,7 @@ export function createRunAccumulator(setup: RunSetup, plan: RunPlan): RunAccumul
           const sd = totalsSd(t);
           return {
             metric: spec.metric,
+            ...(spec.frequency !== undefined ? { frequency: spec.frequency } : {}),
             label: spec.label ?? null,
             min: spec.min ?? null,
             max: spec.max ?? null,

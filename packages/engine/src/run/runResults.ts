@@ -38,6 +38,8 @@ export type YieldSummary = {
 /** Per spec: the limit, the yield summary and Cp/Cpk (σ = Monte Carlo sample sd; null if undefined). */
 export type SpecSummary = YieldSummary & {
   metric: string;
+  /** Hz, for a frequency metric (its column in `metrics` is `metric@frequency`); absent otherwise. */
+  frequency?: number;
   label: string | null;
   min: number | null;
   max: number | null;

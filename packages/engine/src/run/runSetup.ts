@@ -1,9 +1,13 @@
 import type { HistogramGrid } from '../stats/histogramGrid.js';
 import { pilotGrids } from './pilotGrids.js';
 import type { SampleModel } from './sampleModel.js';
+import { specColumnId } from '../model/metrics.js';
 
-/** A limit on a metric (at least one of min/max), as in the design's specs. */
-export type SpecLimit = { metric: string; min?: number; max?: number; label?: string };
+/**
+ * A limit on a metric (at least one of min/max), as in the design's specs; `frequency` (Hz) for
+ * the frequency metrics, whose kernel column is `metric@frequency`.
+ */
+export type SpecLimit = { metric: string; frequency?: number; min?: number; max?: number; label?: string };
 
 /**
  * Everything a chunk needs besides the plan: the model, its specs (with metric column indices)
@@ -27,8 +31,8 @@ export type RunSetup = {
 export function createRunSetup(model: SampleModel, specs: readonly SpecLimit[]): RunSetup {
   const metrics = model.kernel.metrics;
   const specMetric = specs.map((s, i) => {
-    const m = metrics.indexOf(s.metric);
-    if (m < 0) throw new RangeError(`specs[${i}].metric '${s.metric}' is not a metric`);
+    const m = metrics.indexOf(specColumnId(s));
+    if (m < 0) throw new RangeError(`specs[${i}].metric '${specColumnId(s)}' is not a metric`);
     if (s.min === undefined && s.max === undefined) throw new RangeError(`specs[${i}] needs min or max`);
     return m;
   });

@@ -1,4 +1,5 @@
 import type { RunResults } from '@sigmatail/engine';
+import { specColumnId } from '@sigmatail/engine';
 import { ChartFrame } from '../charts/ChartFrame.js';
 import { Histogram } from '../charts/Histogram.js';
 import { metricInfo } from '../results/metricInfo.js';
@@ -13,7 +14,7 @@ export function CompareHistograms({ results, metrics }: { results: RunResults[];
         if (hs.length !== results.length) return null;
         const edges = commonEdges(hs.map((h) => h.edges));
         const info = metricInfo(m);
-        const spec = results[0].specs.find((s) => s.metric === m);
+        const spec = results[0].specs.find((s) => specColumnId(s) === m);
         return (
           <ChartFrame
             key={m}

@@ -1,5 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { designSchema, type Design } from '@sigmatail/engine';
+import { designSchema, migrateDesign, type Design } from '@sigmatail/engine';
 import { useState, type ReactNode } from 'react';
 import { FormProvider, useForm } from 'react-hook-form';
 import { ErrorNote } from '../components/QueryState.js';
@@ -35,7 +35,8 @@ export function DesignForm({
 }: DesignFormProps) {
   const form = useForm<Design>({
     resolver: zodResolver(designSchema),
-    defaultValues: initial,
+    // Older document versions open migrated, so they validate and save as the current version.
+    defaultValues: migrateDesign(initial) as Design,
     mode: 'onChange',
   });
   const [message, setMessage] = useState('');

@@ -16,6 +16,22 @@ describe('live nominal results', () => {
     expect(within(panel).getByText('Ia')).toBeInTheDocument();
   });
 
+  it('plots the nominal frequency response with the −3 dB points, and opens a version-1 document', () => {
+    const d = defaultDesign();
+    const cap = (value: string) => ({ value, tolerance: 10, spread: { kind: 'normal' as const } });
+    Object.assign(d.parts, { cout1: cap('22n'), cout2: cap('22n'), cg2: cap('100n') });
+    d.parts.rload1 = { value: '470k', tolerance: 5, spread: { kind: 'normal' } };
+    render(<LiveResults state={evaluateNominal(d)} />);
+    expect(screen.getByRole('img', { name: 'Balance against frequency' })).toBeInTheDocument();
+    expect(
+      screen.getByRole('img', { name: 'Gain of output 1 and output 2 against frequency' }),
+    ).toBeInTheDocument();
+    expect(screen.getByTestId('corners').textContent).toMatch(/out 1 \d[\d.]* Hz … [\d.]+ [kM]Hz/);
+    // A stored version-1 document (no capacitors) still evaluates.
+    const v1 = { ...defaultDesign(), version: 1 };
+    expect(evaluateNominal(v1).ok).toBe(true);
+  });
+
   it('names the fields to fix when the design does not parse', () => {
     const bad = {
       ...defaultDesign(),

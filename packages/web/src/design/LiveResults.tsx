@@ -1,6 +1,7 @@
 import type { ReactNode } from 'react';
 import { formatSi, formatSig } from '../format/formatSi.js';
 import type { NominalState } from './useNominal.js';
+import { FrequencyPanel } from './FrequencyPanel.js';
 
 function Row({ label, children, warn = false }: { label: ReactNode; children: ReactNode; warn?: boolean }) {
   return (
@@ -166,6 +167,7 @@ export function LiveResults({ state }: { state: NominalState }) {
               )}
             </div>
           )}
+          <FrequencyPanel design={state.design} metrics={m} />
         </>
       )}
     </section>

@@ -1,5 +1,6 @@
 import { useFormContext } from 'react-hook-form';
 import {
+  CAPACITOR_PARTS,
   letterForTolerance,
   parseValue,
   TOLERANCE_LETTERS,
@@ -19,7 +20,7 @@ const SPREADS = [
   ['fixed', 'Fixed'],
 ] as const;
 
-const toValues = {
+const toValues = (kind: 'resistance' | 'capacitance') => ({
   setValueAs: (v: unknown) =>
     Array.isArray(v)
       ? v
@@ -27,10 +28,10 @@ const toValues = {
           .split(/[\s,;]+/)
           .filter(Boolean)
           .map((t) => {
-            const r = parseValue(t, 'resistance');
+            const r = parseValue(t, kind);
             return r.ok ? r.value : Number.NaN;
           }),
-};
+});
 
 /** One row of the parts table: value (RKM or engineering), tolerance letter and percent, spread. */
 export function PartRow({ name, label }: { name: PartName; label: string }) {
@@ -42,12 +43,13 @@ export function PartRow({ name, label }: { name: PartName; label: string }) {
   } = useFormContext<Design>();
   const part = watch(`parts.${name}`);
   if (!part) return null;
+  const valueKind = (CAPACITOR_PARTS as readonly string[]).includes(name) ? 'capacitance' : 'resistance';
   const kind = part.spread?.kind;
   const err = errors.parts?.[name];
   const parsed =
     typeof part.value === 'number'
       ? { ok: true as const, value: part.value }
-      : parseValue(String(part.value ?? ''), 'resistance');
+      : parseValue(String(part.value ?? ''), valueKind);
   const letter = letterForTolerance(Number(part.tolerance)) ?? '';
   return (
     <tr className="border-b border-rule/60 align-top">
@@ -60,7 +62,9 @@ export function PartRow({ name, label }: { name: PartName; label: string }) {
           className={`${cellInput} num`}
           {...register(`parts.${name}.value`)}
         />
-        <p className="num mt-0.5 text-[11px] text-dim">{parsed.ok ? formatSi(parsed.value, 'Ω', 4) : ''}</p>
+        <p className="num mt-0.5 text-[11px] text-dim">
+          {parsed.ok ? formatSi(parsed.value, valueKind === 'capacitance' ? 'F' : 'Ω', 4) : ''}
+        </p>
         <FieldError error={err?.value} />
       </td>
       <td className="pr-2">
@@ -143,7 +147,7 @@ export function PartRow({ name, label }: { name: PartName; label: string }) {
               aria-label={`${label} measured values`}
               placeholder="99.2k, 100.4k, …"
               className={`${cellInput} num`}
-              {...register(`parts.${name}.spread.values`, toValues)}
+              {...register(`parts.${name}.spread.values`, toValues(valueKind))}
             />
           )}
         </div>

@@ -16,8 +16,21 @@ const OPTIONAL: [PartName, string, string][] = [
   ['rload2', 'Rload2', '220k'],
   ['rsource', 'Rsource', '10k'],
 ];
+// Capacitors (design format 2): absent coupling/bypass = ideal, absent stray = none. Defaults are
+// typical film values (from memory) and a wiring estimate for the stray capacitance.
+const CAPACITORS: [PartName, string, string, number][] = [
+  ['cin', 'Cin (input coupling)', '22n', 10],
+  ['cg2', 'Cg2 (grid 2 bypass)', '100n', 10],
+  ['cout1', 'Cout1 (output 1 coupling)', '22n', 10],
+  ['cout2', 'Cout2 (output 2 coupling)', '22n', 10],
+  ['cstray1', 'Cstray1 (plate 1 stray)', '47p', 30],
+  ['cstray2', 'Cstray2 (plate 2 stray)', '47p', 30],
+];
 
-/** Every toleranced resistor of the stage; loads and source resistance can be left out. */
+/**
+ * Every toleranced part of the stage: the resistors (loads and source resistance can be left out)
+ * and the capacitors that shape the frequency response (all optional).
+ */
 export function PartsTable({ readOnly }: { readOnly: boolean }) {
   const { watch, setValue } = useFormContext<Design>();
   const parts = watch('parts');
@@ -28,7 +41,7 @@ export function PartsTable({ readOnly }: { readOnly: boolean }) {
         head={
           <>
             <th className="py-1.5 font-medium">Part</th>
-            <th className="font-medium">Value (4k7, 2.2k, 1M…)</th>
+            <th className="font-medium">Value (4k7, 2.2k, 1M, 22n…)</th>
             <th className="font-medium">Tolerance</th>
             <th className="font-medium">Spread</th>
             <th className="font-medium">Spread parameters</th>
@@ -39,6 +52,7 @@ export function PartsTable({ readOnly }: { readOnly: boolean }) {
           <PartRow key={n} name={n} label={l} />
         ))}
         {OPTIONAL.map(([n, l]) => parts?.[n] && <PartRow key={n} name={n} label={l} />)}
+        {CAPACITORS.map(([n, l]) => parts?.[n] && <PartRow key={n} name={n} label={l} />)}
       </Table>
       <div className="mt-2 flex flex-wrap gap-3 text-sm">
         {OPTIONAL.map(([n, l, dflt]) => (
@@ -61,6 +75,28 @@ export function PartsTable({ readOnly }: { readOnly: boolean }) {
             {l} fitted
           </label>
         ))}
+      </div>
+      <div className="mt-2 flex flex-wrap gap-3 text-sm">
+        {CAPACITORS.map(([n, l, dflt, tol]) => (
+          <label key={n} className="flex items-center gap-1.5 text-dim">
+            <input
+              type="checkbox"
+              disabled={readOnly}
+              checked={!!parts?.[n]}
+              onChange={(e) =>
+                setValue(
+                  `parts.${n}`,
+                  e.target.checked ? { value: dflt, tolerance: tol, spread: { kind: 'normal' } } : undefined,
+                  { shouldDirty: true, shouldValidate: true },
+                )
+              }
+            />
+            {l.split(' ')[0]} fitted
+          </label>
+        ))}
+        <span className="text-xs text-dim">
+          Capacitors left out are ideal (coupling, bypass) or absent (stray).
+        </span>
       </div>
     </div>
   );

@@ -1,10 +1,15 @@
 import { useFieldArray, useFormContext } from 'react-hook-form';
-import { METRICS, type Design } from '@sigmatail/engine';
+import { AC_METRIC_IDS, AC_METRICS, CORNER_METRICS, METRICS, type Design } from '@sigmatail/engine';
 import { Button } from '../components/ui.js';
 import { cellInput, FieldError, optionalNumber } from './formHelpers.js';
 import { Table } from '../components/Table.js';
 
-const CHOOSABLE = METRICS.filter((m) => m.id !== 'valid');
+const CHOOSABLE = [
+  ...METRICS.filter((m) => m.id !== 'valid'),
+  ...CORNER_METRICS,
+  ...AC_METRICS.map((m) => ({ ...m, label: `${m.label} at…` })),
+];
+const isAc = (id: string | undefined) => (AC_METRIC_IDS as readonly (string | undefined)[]).includes(id);
 
 /** Limits on metrics; a run's yield counts the samples inside every one of them. */
 export function SpecsTable({ readOnly }: { readOnly: boolean }) {
@@ -12,6 +17,7 @@ export function SpecsTable({ readOnly }: { readOnly: boolean }) {
     control,
     register,
     watch,
+    setValue,
     formState: { errors },
   } = useFormContext<Design>();
   const { fields, append, remove } = useFieldArray({ control, name: 'specs' });
@@ -23,6 +29,7 @@ export function SpecsTable({ readOnly }: { readOnly: boolean }) {
         head={
           <>
             <th className="py-1.5 font-medium">Metric</th>
+            <th className="font-medium">Frequency (Hz)</th>
             <th className="font-medium">Min</th>
             <th className="font-medium">Max</th>
             <th className="font-medium">Label</th>
@@ -31,7 +38,8 @@ export function SpecsTable({ readOnly }: { readOnly: boolean }) {
         }
       >
         {fields.map((f, i) => {
-          const unit = METRICS.find((m) => m.id === specs?.[i]?.metric)?.unit ?? '';
+          const metric = specs?.[i]?.metric;
+          const unit = CHOOSABLE.find((m) => m.id === metric)?.unit ?? '';
           const err = errors.specs?.[i];
           return (
             <tr key={f.id} className="border-b border-rule/60 align-top">
@@ -39,7 +47,13 @@ export function SpecsTable({ readOnly }: { readOnly: boolean }) {
                 <select
                   aria-label={`Spec ${i + 1} metric`}
                   className={cellInput}
-                  {...register(`specs.${i}.metric`)}
+                  {...register(`specs.${i}.metric`, {
+                    // A frequency metric needs a frequency (20 kHz to start with); others take none.
+                    onChange: (e: { target: { value: string } }) =>
+                      setValue(`specs.${i}.frequency`, isAc(e.target.value) ? 20000 : undefined, {
+                        shouldValidate: true,
+                      }),
+                  })}
                 >
                   {CHOOSABLE.map((m) => (
                     <option key={m.id} value={m.id}>
@@ -48,6 +62,18 @@ export function SpecsTable({ readOnly }: { readOnly: boolean }) {
                     </option>
                   ))}
                 </select>
+              </td>
+              <td className="pr-2">
+                {isAc(metric) && (
+                  <input
+                    aria-label={`Spec ${i + 1} frequency Hz`}
+                    type="number"
+                    step="any"
+                    className={`${cellInput} num w-24`}
+                    {...register(`specs.${i}.frequency`, optionalNumber)}
+                  />
+                )}
+                <FieldError error={err?.frequency} />
               </td>
               <td className="pr-2">
                 <input

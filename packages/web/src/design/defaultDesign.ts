@@ -9,7 +9,7 @@ export function defaultDesign(): Design {
   });
   return {
     format: 'sigmatail-design',
-    version: 1,
+    version: 2,
     name: 'New splitter',
     notes: '',
     topology: 'cap-coupled',

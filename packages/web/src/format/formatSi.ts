@@ -12,7 +12,7 @@ const PREFIXES: Record<number, string> = {
 };
 
 /** Units that never take an SI prefix (logarithmic or already relative). */
-const NO_PREFIX = new Set(['dB', '%', 'PPM', '']);
+const NO_PREFIX = new Set(['dB', '%', 'PPM', '°', '']);
 
 export const MINUS = '\u2212';
 

@@ -1,4 +1,5 @@
 import type { RunResults } from '@sigmatail/engine';
+import { specColumnId } from '@sigmatail/engine';
 import { useState } from 'react';
 import { ChartFrame } from '../charts/ChartFrame.js';
 import { Tornado } from '../charts/Tornado.js';
@@ -9,7 +10,7 @@ import { INPUT_LABELS, metricInfo } from './metricInfo.js';
 export function InfluencePanel({ results, runId }: { results: RunResults; runId: string }) {
   const inf = results.influence;
   const metrics = inf ? Object.keys(inf.tornado).filter((m) => m !== 'valid') : [];
-  const [metric, setMetric] = useState(results.specs[0]?.metric ?? 'balanceDb');
+  const [metric, setMetric] = useState(results.specs[0] ? specColumnId(results.specs[0]) : 'balanceDb');
   if (!inf) return <p className="text-sm text-dim">This run was launched without the influence analysis.</p>;
   const chosen = metrics.includes(metric) ? metric : metrics[0];
   const info = metricInfo(chosen);

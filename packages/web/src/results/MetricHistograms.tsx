@@ -1,4 +1,5 @@
 import type { RunResults } from '@sigmatail/engine';
+import { specColumnId } from '@sigmatail/engine';
 import { useState } from 'react';
 import { ChartFrame } from '../charts/ChartFrame.js';
 import { Histogram } from '../charts/Histogram.js';
@@ -7,7 +8,7 @@ import { metricInfo, PLOTTABLE } from './metricInfo.js';
 
 /** One histogram per specified metric, plus any others the reader adds. */
 export function MetricHistograms({ results, runId }: { results: RunResults; runId: string }) {
-  const specMetrics = [...new Set(results.specs.map((s) => s.metric))];
+  const specMetrics = [...new Set(results.specs.map((s) => specColumnId(s)))];
   // Gain and balance are always worth a look, specified or not.
   const [extra, setExtra] = useState<string[]>(['gainDiff', 'balanceDb']);
   const shown = [...specMetrics, ...extra.filter((m) => !specMetrics.includes(m))];
@@ -19,7 +20,7 @@ export function MetricHistograms({ results, runId }: { results: RunResults; runI
           const s = results.metrics[m];
           if (!s) return null;
           const info = metricInfo(m);
-          const spec = results.specs.find((x) => x.metric === m);
+          const spec = results.specs.find((x) => specColumnId(x) === m);
           const note = (
             <span className="num">
               mean {formatSi(s.mean ?? Number.NaN, info.unit)} · sd {formatSi(s.sd ?? Number.NaN, info.unit)}{' '}

@@ -1,5 +1,6 @@
 import type { RunResults } from '@sigmatail/engine';
 import { Panel } from '../components/ui.js';
+import { BalanceBandPanel } from './BalanceBandPanel.js';
 import { ConvergencePanel } from './ConvergencePanel.js';
 import { InfluencePanel } from './InfluencePanel.js';
 import { MetricHistograms } from './MetricHistograms.js';
@@ -31,6 +32,7 @@ export function ResultsView({
       <Panel title="Distributions">
         <MetricHistograms results={results} runId={runId} />
       </Panel>
+      <BalanceBandPanel results={results} runId={runId} />
       <Panel title="Influence">
         <InfluencePanel results={results} runId={runId} />
       </Panel>

@@ -1,4 +1,5 @@
 import type { RunResults } from '@sigmatail/engine';
+import { specColumnId } from '@sigmatail/engine';
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { runQueries } from '../api/queries/runQueries.js';
@@ -22,7 +23,7 @@ export function ScatterPanel({ results, runId }: { results: RunResults; runId: s
   const metricCols = columns.filter((c) => c in results.metrics && c !== 'valid');
   const xi = columns.indexOf(part);
   const yi = columns.indexOf(metric);
-  const spec = results.specs.find((s) => s.metric === metric);
+  const spec = results.specs.find((s) => specColumnId(s) === metric);
   const info = metricInfo(metric);
   const isOhms = /^r/.test(part);
   return (

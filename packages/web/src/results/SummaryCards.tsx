@@ -1,4 +1,4 @@
-import { cpkInterval, type RunResults } from '@sigmatail/engine';
+import { cpkInterval, specColumnId, type RunResults } from '@sigmatail/engine';
 import { formatPpm, formatSi, formatSig, formatYield } from '../format/formatSi.js';
 import { metricInfo } from './metricInfo.js';
 
@@ -56,7 +56,7 @@ export function SummaryCards({ results, target }: { results: RunResults; target?
         {target !== undefined && <p className="mt-1 text-xs text-dim">target {formatYield(target)}</p>}
       </Card>
       {results.specs.map((s, i) => {
-        const info = metricInfo(s.metric);
+        const info = metricInfo(specColumnId(s));
         const ci = cpkInterval(s.cpk, s.samples);
         const limits = [
           s.min !== null ? `≥ ${formatSi(s.min, info.unit)}` : '',

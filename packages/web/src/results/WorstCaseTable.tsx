@@ -1,4 +1,5 @@
 import type { RunResults } from '@sigmatail/engine';
+import { specColumnId } from '@sigmatail/engine';
 import { formatSi } from '../format/formatSi.js';
 import { metricInfo } from './metricInfo.js';
 
@@ -22,7 +23,7 @@ const KEY_METRICS = [
 export function WorstCaseTable({ results }: { results: RunResults }) {
   const wc = results.worstCase;
   if (!wc) return <p className="text-sm text-dim">This run was launched without the worst-case analysis.</p>;
-  const ids = [...new Set([...results.specs.map((s) => s.metric), ...KEY_METRICS])].filter(
+  const ids = [...new Set([...results.specs.map((s) => specColumnId(s)), ...KEY_METRICS])].filter(
     (m) => wc.metrics[m],
   );
   const f = (v: number | null | undefined, unit: string) => formatSi(v ?? Number.NaN, unit);

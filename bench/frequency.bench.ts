@@ -1,0 +1,90 @@
+// Frequency-response figures: kernel and full-chunk throughput per core with the DC point and the
+// frequency metrics at 3 spec frequencies per sample, then with the −3 dB points and the balance
+// band added; and the editor's nominal frequency response (121 frequencies). Fixed seeds and sizes;
+// speed is reported here, never asserted in tests. Run: npm run bench:frequency -w @sigmatail/bench
+import {
+  buildTestDesign,
+  createStream,
+  DEFAULT_CHUNK_SIZE,
+  designSetup,
+  fillUniforms,
+  nominalFrequencyResponse,
+  runSetupChunk,
+  type RunPlan,
+  type RunSetup,
+} from '@sigmatail/engine';
+import { timeBest } from './src/timeBest.js';
+
+const cap = (value: string, tolerance: number, kind = 'normal') => ({ value, tolerance, spread: { kind } });
+const plain = buildTestDesign();
+// The engine's bench design with film coupling/bypass capacitors, stray capacitance and 3 spec
+// frequencies (20 Hz, 1 kHz, 20 kHz).
+const design = buildTestDesign({
+  parts: {
+    ...Object.fromEntries(Object.entries(plain.parts).map(([k, p]) => [k, { ...p }])),
+    cin: cap('22n', 10),
+    cg2: cap('100n', 10),
+    cout1: cap('22n', 10),
+    cout2: cap('22n', 10),
+    cstray1: cap('47p', 30, 'uniform'),
+    cstray2: cap('47p', 30, 'uniform'),
+  },
+  specs: [
+    { metric: 'balanceDb', min: -1, max: 1 },
+    { metric: 'acPhaseDeg', frequency: 20, min: -5, max: 5 },
+    { metric: 'acBalanceDb', frequency: 1000, min: -1, max: 1 },
+    { metric: 'acBalanceDb', frequency: 20000, min: -1, max: 1 },
+  ],
+});
+const N = DEFAULT_CHUNK_SIZE;
+const quick = process.env.BENCH_QUICK === '1';
+const mega = (n: number, ms: number) => n / ms / 1e3;
+
+function sampledInputs(setup: RunSetup, n: number): Float64Array[] {
+  const m = setup.model;
+  const u = m.dims.map(() => new Float64Array(n));
+  const inputs = m.kernel.inputs.map(() => new Float64Array(n));
+  fillUniforms('random', 'bench', 0, 0, n, u);
+  m.fillInputs(u, n, inputs, createStream('bench', 'pairing'), { samples: 0, draws: 0, failures: 0 });
+  return inputs;
+}
+
+const cases: [string, RunSetup, string][] = [
+  ['midband only (no capacitors, no frequency specs)', designSetup(plain), ''],
+  ['DC + 3 spec frequencies', designSetup(design, { corners: false, band: false }), '≥ 0.5 M/s'],
+  ['DC + 3 spec frequencies + −3 dB points', designSetup(design, { band: false }), ''],
+  ['DC + 3 spec frequencies + band (13 frequencies)', designSetup(design, { corners: false }), ''],
+  ['full (default for this design)', designSetup(design), ''],
+];
+const rows: Record<string, string | number>[] = [];
+for (const [name, setup, target] of cases) {
+  const { kernel } = setup.model;
+  const inputs = sampledInputs(setup, N);
+  const out = kernel.metrics.map(() => new Float64Array(N));
+  const k = timeBest(() => kernel.evaluate(inputs, N, out), quick ? 3 : 5);
+  const plan: RunPlan = { samples: 8 * N, seed: 'bench', plan: 'random', chunkSize: N };
+  let chunk = 0;
+  const c = timeBest(() => void runSetupChunk(setup, plan, chunk++ % 8), quick ? 3 : 5);
+  rows.push({
+    case: name,
+    columns: kernel.metrics.length,
+    'kernel M/s (cpu)': +mega(N, k.cpu).toFixed(3),
+    'kernel µs/sample': +((k.cpu * 1e3) / N).toFixed(2),
+    'full chunk M/s (cpu)': +mega(N, c.cpu).toFixed(3),
+    'full chunk M/s (wall best)': +mega(N, c.best).toFixed(3),
+    target,
+  });
+}
+console.log('\nFrequency response throughput per core (one thread; chunk = 65 536 samples, seed "bench")');
+console.table(rows);
+
+// The editor's nominal view: bias point + 121 frequencies, as the web app runs it per keystroke.
+const nominal = timeBest(
+  () => {
+    for (let i = 0; i < 100; i++) nominalFrequencyResponse(design);
+  },
+  quick ? 3 : 7,
+);
+console.log(
+  `nominalFrequencyResponse (121 frequencies, with the nominal bias solve): ${(nominal.cpu / 100).toFixed(3)} ms per call (cpu)`,
+);
