@@ -3,7 +3,7 @@ import { TUBE_TYPES } from '../tubes/tubeTypes.js';
 import { AC_METRIC_IDS, CORNER_METRIC_IDS, METRIC_IDS } from '../model/metrics.js';
 import { MAX_SPREAD_K, MAX_TOLERANCE_PERCENT } from '../limits.js';
 import { parseValue } from '../values/parseValue.js';
-import { RESISTOR_KINDS } from '../values/resistorKinds.js';
+import { RESISTOR_KINDS, type ResistorKind } from '../values/resistorKinds.js';
 
 const finite = () => z.number().refine(Number.isFinite, 'must be a finite number');
 const spreadK = finite().positive().max(MAX_SPREAD_K).optional();
@@ -231,8 +231,11 @@ export type PartName = keyof Design['parts'];
 /** Capacitor part names (farads); the rest are resistors (ohms). */
 export const CAPACITOR_PARTS = ['cin', 'cg2', 'cout1', 'cout2', 'cstray1', 'cstray2'] as const;
 
-/** A part with its value resolved to ohms (resistors) or farads (capacitors). */
-export type ResolvedPart = Omit<Part, 'value'> & { value: number };
+/**
+ * A part with its value resolved to ohms (resistors) or farads (capacitors); `kind` is a
+ * resistor's construction (capacitors have none).
+ */
+export type ResolvedPart = Omit<Part, 'value'> & { value: number; kind?: ResistorKind };
 /**
  * The design with every part value resolved to a number of ohms.
  *
