@@ -68,6 +68,8 @@ export async function startStack(name: string) {
     SIGMATAIL_MAIL_FAKE: '1',
     SMTP_PORT: '0',
     SIGMATAIL_SECRET: 'bench-secret-'.padEnd(40, 'x'),
+    // No per-request log lines: this harness keeps all child output in memory and scans it.
+    LOG_LEVEL: 'warn',
   });
   const base = (await server.waitFor(/http:\/\/127\.0\.0\.1:\d+/)).replace(/\/$/, '');
   const login = await fetch(`${base}/api/auth/login`, {

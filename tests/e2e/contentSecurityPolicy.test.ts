@@ -69,3 +69,18 @@ describe('Content-Security-Policy in the browser', () => {
     expect(res.headers.get('content-security-policy')).toMatch(/frame-ancestors 'none'/);
   });
 });
+
+describe('sign out everywhere', () => {
+  it('ends the sessions of the same account in other browsers at once', async () => {
+    const laptop = await signIn(h.browser, h.baseUrl, 'viewer@fenwick.example');
+    const bench = await signIn(h.browser, h.baseUrl, 'viewer@fenwick.example');
+    await bench.getByRole('button', { name: 'Sign out everywhere' }).click();
+    await bench.waitForURL(/\/signin$/);
+    await laptop.reload();
+    await laptop.waitForURL(/\/signin/);
+    await laptop.getByRole('button', { name: 'Sign in' }).waitFor();
+    await screenshot(laptop, 'signed-out-everywhere');
+    await laptop.context().close();
+    await bench.context().close();
+  });
+});

@@ -36,3 +36,8 @@ export function forgotRules(config: AppConfig, email: string, source: string): T
 export function inviteRules(config: AppConfig, workspaceId: string): ThrottleRule[] {
   return [{ key: `invite:ws:${workspaceId}`, limit: config.inviteLimit, windowMs: config.inviteWindowMs }];
 }
+
+/** Invalid invite or reset links tried per source (guessing tokens): twice the sign-in allowance. */
+export function tokenRules(config: AppConfig, source: string): ThrottleRule[] {
+  return [{ key: `token:src:${source}`, limit: 2 * config.loginSourceLimit, windowMs: config.loginWindowMs }];
+}

@@ -9,6 +9,7 @@ import { assertPasswordPolicy, hashPassword } from './passwordPolicy.js';
 import { forgotRules, sourceKey } from './authThrottleRules.js';
 import { sessionCacheFor } from './sessionCache.js';
 import { Throttle } from './throttle.js';
+import { countTokenFailures } from './countTokenFailures.js';
 import { revokeSessions } from './sessionCookie.js';
 import { hashToken, newMailToken } from './mailToken.js';
 
@@ -55,39 +56,41 @@ export function createPasswordResetRouter({ db, mailer, config }: AppDeps): Rout
 
   router.post('/auth/reset', async (req, res) => {
     const { token, password } = resetBody.parse(req.body ?? {});
-    const userId = await db.transaction().execute(async (tx) => {
-      // Claiming the row in the update makes a token single-use even under concurrent requests.
-      const reset = await tx
-        .updateTable('password_resets')
-        .set({ used_at: new Date() })
-        .where('token_hash', '=', hashToken(token))
-        .where('used_at', 'is', null)
-        .where('expires_at', '>', new Date())
-        .returning('user_id')
-        .executeTakeFirst();
-      if (!reset) throw new HttpError(400, 'this reset link is invalid, used or expired', 'token');
-      const owner = await tx
-        .selectFrom('users')
-        .select('email')
-        .where('id', '=', reset.user_id)
-        .executeTakeFirstOrThrow();
-      assertPasswordPolicy(password, owner.email); // a refusal rolls back, so the link still works
-      const passwordHash = await hashPassword(password);
-      // A new password also signs out every existing session.
-      await tx
-        .updateTable('users')
-        .set((eb) => ({ password_hash: passwordHash, session_epoch: eb('session_epoch', '+', 1) }))
-        .where('id', '=', reset.user_id)
-        .execute();
-      await revokeSessions(tx, { everyOf: reset.user_id });
-      const member = await findSessionUser(tx, { userId: reset.user_id });
-      await recordAudit(tx, {
-        workspaceId: member?.workspaceId ?? null,
-        userId: reset.user_id,
-        action: 'auth.reset',
-      });
-      return reset.user_id;
-    });
+    const userId = await countTokenFailures(throttle, config, req, () =>
+      db.transaction().execute(async (tx) => {
+        // Claiming the row in the update makes a token single-use even under concurrent requests.
+        const reset = await tx
+          .updateTable('password_resets')
+          .set({ used_at: new Date() })
+          .where('token_hash', '=', hashToken(token))
+          .where('used_at', 'is', null)
+          .where('expires_at', '>', new Date())
+          .returning('user_id')
+          .executeTakeFirst();
+        if (!reset) throw new HttpError(400, 'this reset link is invalid, used or expired', 'token');
+        const owner = await tx
+          .selectFrom('users')
+          .select('email')
+          .where('id', '=', reset.user_id)
+          .executeTakeFirstOrThrow();
+        assertPasswordPolicy(password, owner.email); // a refusal rolls back, so the link still works
+        const passwordHash = await hashPassword(password);
+        // A new password also signs out every existing session.
+        await tx
+          .updateTable('users')
+          .set((eb) => ({ password_hash: passwordHash, session_epoch: eb('session_epoch', '+', 1) }))
+          .where('id', '=', reset.user_id)
+          .execute();
+        await revokeSessions(tx, { everyOf: reset.user_id });
+        const member = await findSessionUser(tx, { userId: reset.user_id });
+        await recordAudit(tx, {
+          workspaceId: member?.workspaceId ?? null,
+          userId: reset.user_id,
+          action: 'auth.reset',
+        });
+        return reset.user_id;
+      }),
+    );
     await sessionCacheFor(db).forgetUser(userId); // older sessions are refused from the next request on
     res.json({ ok: true });
   });

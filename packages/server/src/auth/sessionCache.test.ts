@@ -58,6 +58,25 @@ describe('SessionCache', () => {
     expect(t.calls()).toBe(3);
   });
 
+  it('untrusted (its broadcast channel down): every request loads, nothing is kept', async () => {
+    const t = setup();
+    await t.cache.get('tok', t.load());
+    t.cache.trusted = false;
+    t.setAnswer(null); // e.g. signed out by another process while the channel was down
+    expect(await t.cache.get('tok', t.load())).toBeNull();
+    expect(await t.cache.get('tok', t.load())).toBeNull();
+    expect(t.calls()).toBe(3);
+  });
+
+  it('forgetUser and forgetAll broadcast the change to the other processes', async () => {
+    const t = setup();
+    const sent: string[] = [];
+    t.cache.broadcast = async (payload) => void sent.push(payload);
+    await t.cache.forgetUser('u1');
+    await t.cache.forgetAll();
+    expect(sent).toEqual(['u1', '*']);
+  });
+
   it('never serves an entry past the token expiry', async () => {
     const t = setup();
     await t.cache.get('tok', t.load('u1', 1_000_000 + 10));

@@ -129,6 +129,27 @@ describe('sign-in throttling', () => {
   });
 });
 
+describe('link token guessing', () => {
+  it('a source trying many invalid invite or reset links gets 429; others are not affected', async () => {
+    const from = newSource();
+    const get = (src: string) =>
+      fetch(`${a.baseUrl}/api/invites/${randomBytes(24).toString('base64url')}`, {
+        headers: { 'x-forwarded-for': src },
+      });
+    const statuses = [];
+    for (let i = 0; i < 10; i++) statuses.push((await get(from)).status);
+    expect(statuses).toEqual(Array(10).fill(404));
+    // 2 × loginSourceLimit (5) failures; the reset form counts against the same allowance.
+    const reset = await fetch(`${b.baseUrl}/api/auth/reset`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json', 'x-forwarded-for': from },
+      body: JSON.stringify({ token: randomBytes(24).toString('base64url'), password: 'long-enough-pw-1' }),
+    });
+    expect(reset.status).toBe(429);
+    expect((await get(newSource())).status).toBe(404);
+  });
+});
+
 describe('password policy', () => {
   it('hashes new passwords at bcrypt cost >= 10 and refuses short, e-mail-like or common ones, naming the field', async () => {
     const admin = await buildUser(a.deps.db, { role: 'admin' });

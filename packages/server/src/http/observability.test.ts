@@ -1,4 +1,5 @@
 import { randomBytes } from 'node:crypto';
+import { createServer, type AddressInfo, type Socket } from 'node:net';
 import { Writable } from 'node:stream';
 import { createDb } from '@sigmatail/db';
 import { pino } from 'pino';
@@ -68,6 +69,30 @@ describe('health and readiness probes', () => {
       }
     } finally {
       await down.close();
+    }
+  });
+
+  it('a database that accepts connections but never answers: 503 after the connect timeout, no hang', async () => {
+    const sockets = new Set<Socket>();
+    const silent = createServer((socket) => sockets.add(socket)); // accepts, never speaks
+    await new Promise<void>((r) => silent.listen(0, '127.0.0.1', () => r()));
+    const { port } = silent.address() as AddressInfo;
+    const down = await unreachableApp(`postgres://postgres@127.0.0.1:${port}/sigmatail`);
+    try {
+      // The abort only turns a hang into a failure here; the pool gives up after 2 s by itself.
+      const res = await fetch(down.base + '/api/auth/login', {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({ email: 'a@b.example', password: 'whatever-it-is' }),
+        signal: AbortSignal.timeout(20_000),
+      });
+      expect(res.status).toBe(503);
+      expect(res.headers.get('retry-after')).toBe('5');
+      expect((await fetch(down.base + '/readyz', { signal: AbortSignal.timeout(20_000) })).status).toBe(503);
+    } finally {
+      await down.close();
+      for (const s of sockets) s.destroy();
+      await new Promise((r) => silent.close(r));
     }
   });
 

@@ -11,6 +11,8 @@ import { hashToken } from '../auth/mailToken.js';
 import { presentMe } from '../auth/presentMe.js';
 import { assertPasswordPolicy, hashPassword } from '../auth/passwordPolicy.js';
 import { setSessionCookie } from '../auth/sessionCookie.js';
+import { Throttle } from '../auth/throttle.js';
+import { countTokenFailures } from '../auth/countTokenFailures.js';
 import { nameField, passwordField, tokenField } from '../http/fields.js';
 import { HttpError } from '../http/httpError.js';
 
@@ -38,11 +40,15 @@ function openInvite(db: Kysely<Database>, token: string) {
 /** GET /invites/:token (public: who invited whom, as what), POST /auth/accept-invite (creates the account, signs in). */
 export function createAcceptInviteRouter({ db, config }: AppDeps): Router {
   const router = Router();
+  const throttle = new Throttle(db, config.rateLimitScope);
 
   router.get('/invites/:token', async (req, res) => {
-    const token = tokenField.safeParse(req.params.token);
-    const invite = token.success ? await openInvite(db, token.data).executeTakeFirst() : undefined;
-    if (!invite) throw new HttpError(404, 'this invite link is invalid, used or expired');
+    const invite = await countTokenFailures(throttle, config, req, async () => {
+      const token = tokenField.safeParse(req.params.token);
+      const found = token.success ? await openInvite(db, token.data).executeTakeFirst() : undefined;
+      if (!found) throw new HttpError(404, 'this invite link is invalid, used or expired');
+      return found;
+    });
     res.json({
       invite: {
         email: invite.email,
@@ -56,46 +62,52 @@ export function createAcceptInviteRouter({ db, config }: AppDeps): Router {
 
   router.post('/auth/accept-invite', async (req, res) => {
     const { token, name, password } = acceptBody.parse(req.body ?? {});
-    const userId = await db.transaction().execute(async (tx) => {
-      const invite = await openInvite(tx, token).forUpdate('i').executeTakeFirst();
-      if (!invite) throw new HttpError(400, 'this invite link is invalid, used or expired', 'token');
-      let user = await tx
-        .selectFrom('users')
-        .select(['id', 'password_hash'])
-        .where('email', '=', invite.email)
-        .executeTakeFirst();
-      if (user) {
-        // An existing account joins with its own password; the invite must not let anyone replace it.
-        if (!(await bcrypt.compare(password, user.password_hash))) {
-          throw new HttpError(
-            400,
-            'this email already has an account: enter its current password',
-            'password',
-          );
+    const userId = await countTokenFailures(throttle, config, req, () =>
+      db.transaction().execute(async (tx) => {
+        const invite = await openInvite(tx, token).forUpdate('i').executeTakeFirst();
+        if (!invite) throw new HttpError(400, 'this invite link is invalid, used or expired', 'token');
+        let user = await tx
+          .selectFrom('users')
+          .select(['id', 'password_hash'])
+          .where('email', '=', invite.email)
+          .executeTakeFirst();
+        if (user) {
+          // An existing account joins with its own password; the invite must not let anyone replace it.
+          if (!(await bcrypt.compare(password, user.password_hash))) {
+            throw new HttpError(
+              400,
+              'this email already has an account: enter its current password',
+              'password',
+            );
+          }
+        } else {
+          assertPasswordPolicy(password, invite.email);
+          user = await tx
+            .insertInto('users')
+            .values({ email: invite.email, name, password_hash: await hashPassword(password) })
+            .returning(['id', 'password_hash'])
+            .executeTakeFirstOrThrow();
         }
-      } else {
-        assertPasswordPolicy(password, invite.email);
-        user = await tx
-          .insertInto('users')
-          .values({ email: invite.email, name, password_hash: await hashPassword(password) })
-          .returning(['id', 'password_hash'])
-          .executeTakeFirstOrThrow();
-      }
-      await tx
-        .insertInto('memberships')
-        .values({ user_id: user.id, workspace_id: invite.workspace_id, role: invite.role })
-        .onConflict((oc) => oc.columns(['user_id', 'workspace_id']).doUpdateSet({ role: invite.role }))
-        .execute();
-      await tx.updateTable('invites').set({ accepted_at: new Date() }).where('id', '=', invite.id).execute();
-      await recordAudit(tx, {
-        workspaceId: invite.workspace_id,
-        userId: user.id,
-        action: 'invite.accept',
-        target: invite.email,
-        detail: { role: invite.role },
-      });
-      return { id: user.id, workspaceId: invite.workspace_id };
-    });
+        await tx
+          .insertInto('memberships')
+          .values({ user_id: user.id, workspace_id: invite.workspace_id, role: invite.role })
+          .onConflict((oc) => oc.columns(['user_id', 'workspace_id']).doUpdateSet({ role: invite.role }))
+          .execute();
+        await tx
+          .updateTable('invites')
+          .set({ accepted_at: new Date() })
+          .where('id', '=', invite.id)
+          .execute();
+        await recordAudit(tx, {
+          workspaceId: invite.workspace_id,
+          userId: user.id,
+          action: 'invite.accept',
+          target: invite.email,
+          detail: { role: invite.role },
+        });
+        return { id: user.id, workspaceId: invite.workspace_id };
+      }),
+    );
     // A rejoining member's older session for this workspace is valid again (same epoch).
     await sessionCacheFor(db).forgetUser(userId.id);
     const me = await findSessionUser(db, { userId: userId.id, workspaceId: userId.workspaceId });

@@ -106,7 +106,9 @@ export const api = {
   auth: {
     me: () => request<Me>('GET', '/auth/me'),
     login: (email: string, password: string) => request<Me>('POST', '/auth/login', { email, password }),
-    logout: () => request<void>('POST', '/auth/logout'),
+    /** Ends this session; `everywhere` ends every session of the user, on every device. */
+    logout: (everywhere = false) =>
+      request<void>('POST', '/auth/logout', everywhere ? { everywhere: true } : undefined),
     forgot: (email: string) => request<void>('POST', '/auth/forgot', { email }),
     reset: (token: string, password: string) => request<void>('POST', '/auth/reset', { token, password }),
     invite: (token: string) => request<{ invite: InviteInfo }>('GET', `/invites/${enc(token)}`),

@@ -15,6 +15,11 @@ export function AppLayout() {
   const me = useMe();
   const qc = useQueryClient();
   const navigate = useNavigate();
+  const signOut = async (everywhere: boolean) => {
+    await api.auth.logout(everywhere).catch(() => undefined);
+    qc.clear();
+    navigate('/signin', { replace: true });
+  };
   return (
     <div className="flex min-h-screen flex-col">
       <header className="no-print bg-petrol text-white">
@@ -50,13 +55,18 @@ export function AppLayout() {
             <button
               type="button"
               className="rounded-md px-2 py-1 text-[#e6efe9] underline-offset-2 hover:underline"
-              onClick={async () => {
-                await api.auth.logout().catch(() => undefined);
-                qc.clear();
-                navigate('/signin', { replace: true });
-              }}
+              onClick={() => signOut(false)}
             >
               Sign out
+            </button>
+            <button
+              type="button"
+              className="rounded-md px-1 py-1 text-xs text-[#cfe0da] underline-offset-2 hover:underline"
+              aria-label="Sign out everywhere"
+              title="End every session of your account, on every device"
+              onClick={() => signOut(true)}
+            >
+              everywhere
             </button>
           </div>
         </div>
