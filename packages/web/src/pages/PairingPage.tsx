@@ -1,6 +1,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import { productionApi } from '../api/productionApi.js';
+import { designQueries } from '../api/queries/designQueries.js';
 import { productionQueries } from '../api/queries/productionQueries.js';
 import type { EnvelopeRule, PairingStudy } from '../api/productionTypes.js';
 import { ChartFrame } from '../charts/ChartFrame.js';
@@ -48,6 +49,18 @@ function PairingForm({ designId, setDesignId }: { designId: string; setDesignId:
   const [lotText, setLotText] = useState('');
   const [tried, setTried] = useState(false);
   const lot = lotText.trim() ? parseLot(lotText) : null;
+  // Start the matched strategy from the design's own pairing rule, when it has one.
+  const detail = useQuery({ ...designQueries.detail(designId), enabled: !!designId });
+  const ownRule = (
+    detail.data?.latestRevision.document as {
+      tube?: { spread?: { pairing?: { quantity: Quantity; within: number } } };
+    }
+  )?.tube?.spread?.pairing;
+  useEffect(() => {
+    if (!ownRule) return;
+    setQuantity(ownRule.quantity);
+    setWithin(String(ownRule.within));
+  }, [ownRule?.quantity, ownRule?.within]); // eslint-disable-line react-hooks/exhaustive-deps
   const pct = (s: string) => Number(s) > 0 && Number(s) < 100;
   const local = {
     designId: designId ? null : 'Choose a design',
@@ -134,7 +147,17 @@ function PairingForm({ designId, setDesignId }: { designId: string; setDesignId:
             inputMode="decimal"
             value={within}
             onChange={(e) => setWithin(e.target.value)}
-            note={<Note text={err('within', 'strategies.1.within')} />}
+            note={
+              <>
+                <Note text={err('within', 'strategies.1.within')} />
+                {ownRule && (
+                  <p className="mt-0.5 text-xs text-dim">
+                    The design&apos;s own rule: {ownRule.quantity === 'ia' ? 'Ia' : ownRule.quantity} within ±{' '}
+                    {ownRule.within} %
+                  </p>
+                )}
+              </>
+            }
           />
           <TextField
             id="pairing-width"
