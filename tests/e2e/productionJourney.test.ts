@@ -73,6 +73,16 @@ describe('production lead plans tolerances, compares pairing and ages a design',
     await page.getByRole('cell', { name: 'Matched: Ia within ± 8 %' }).waitFor();
     await screenshot(page, '23-pairing');
 
+    // The same comparison with tubes from a measured lot (Ia of each section, mA).
+    const lotBox = pairing.getByLabel(/Measured lot/);
+    await lotBox.fill('1.21, 1.18\n1.05, x');
+    await pairing.getByRole('button', { name: 'Compare' }).click();
+    await pairing.getByText('line 2: two positive numbers (section 1, section 2)').waitFor();
+    await lotBox.fill('1.21, 1.18\n1.05, 1.12\n0.98, 0.99\n1.30, 1.02\n1.10, 1.08\n0.92, 1.01');
+    await pairing.getByRole('button', { name: 'Compare' }).click();
+    await page.getByText('Tubes from a measured lot of 6 envelopes.').waitFor();
+    await screenshot(page, '23a-pairing-lot');
+
     await page.getByRole('link', { name: 'Production', exact: true }).click();
     await page.getByRole('link', { name: /Ageing/ }).click();
     const ageing = page.getByRole('form', { name: 'Apply ageing' });

@@ -19,8 +19,13 @@ export const productionApi = {
     request<{ plans: SavedPlan[] }>('GET', `/plans${designId ? `?designId=${enc(designId)}` : ''}`),
   plan: (id: string) => request<{ plan: SavedPlan }>('GET', `/plans/${enc(id)}`),
   createPlan: (body: PlanRequest) => request<{ plan: SavedPlan }>('POST', '/plans', body),
-  comparePairing: (body: { designId: string; strategies: EnvelopeRule[]; samples: number; seed?: string }) =>
-    request<{ study: PairingStudy }>('POST', '/pairing', body),
+  comparePairing: (body: {
+    designId: string;
+    strategies: EnvelopeRule[];
+    samples: number;
+    seed?: string;
+    lot?: { quantity: 'ia' | 'gm' | 'mu'; sections: [number, number][] };
+  }) => request<{ study: PairingStudy }>('POST', '/pairing', body),
   latestPairing: (designId: string) =>
     request<{ study: PairingStudy }>('GET', `/pairing/latest?designId=${enc(designId)}`),
   age: (body: { designId: string; scenario: AgeingScenario; samples: number; seed?: string }) =>

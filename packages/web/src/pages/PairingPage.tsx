@@ -1,6 +1,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import { productionApi } from '../api/productionApi.js';
+import { designQueries } from '../api/queries/designQueries.js';
 import { productionQueries } from '../api/queries/productionQueries.js';
 import type { EnvelopeRule, PairingStudy } from '../api/productionTypes.js';
 import { ChartFrame } from '../charts/ChartFrame.js';
@@ -17,6 +18,7 @@ import { formatWhen } from '../format/formatWhen.js';
 import { DesignPicker } from '../production/DesignPicker.js';
 import { fieldError, namesField } from '../production/fieldError.js';
 import { formatMoney } from '../production/formatMoney.js';
+import { parseLot } from '../production/parseLot.js';
 import { ruleLabel } from '../production/ruleLabel.js';
 
 type Quantity = 'ia' | 'gm' | 'mu';
@@ -44,7 +46,21 @@ function PairingForm({ designId, setDesignId }: { designId: string; setDesignId:
   const [width, setWidth] = useState('10');
   const [bins, setBins] = useState('5');
   const [samples, setSamples] = useState('20000');
+  const [lotText, setLotText] = useState('');
   const [tried, setTried] = useState(false);
+  const lot = lotText.trim() ? parseLot(lotText) : null;
+  // Start the matched strategy from the design's own pairing rule, when it has one.
+  const detail = useQuery({ ...designQueries.detail(designId), enabled: !!designId });
+  const ownRule = (
+    detail.data?.latestRevision.document as {
+      tube?: { spread?: { pairing?: { quantity: Quantity; within: number } } };
+    }
+  )?.tube?.spread?.pairing;
+  useEffect(() => {
+    if (!ownRule) return;
+    setQuantity(ownRule.quantity);
+    setWithin(String(ownRule.within));
+  }, [ownRule?.quantity, ownRule?.within]); // eslint-disable-line react-hooks/exhaustive-deps
   const pct = (s: string) => Number(s) > 0 && Number(s) < 100;
   const local = {
     designId: designId ? null : 'Choose a design',
@@ -54,6 +70,7 @@ function PairingForm({ designId, setDesignId }: { designId: string; setDesignId:
       Number.isInteger(Number(bins)) && Number(bins) >= 1 && Number(bins) <= 21
         ? null
         : 'A whole number of bins from 1 to 21',
+    lot: lot && !lot.ok ? lot.message : null,
     samples:
       Number.isInteger(Number(samples)) && Number(samples) >= 1000 && Number(samples) <= 200_000
         ? null
@@ -65,7 +82,13 @@ function PairingForm({ designId, setDesignId }: { designId: string; setDesignId:
     { kind: 'binned', quantity, width: Number(width), bins: Number(bins) },
   ];
   const run = useMutation({
-    mutationFn: () => productionApi.comparePairing({ designId, strategies, samples: Number(samples) }),
+    mutationFn: () =>
+      productionApi.comparePairing({
+        designId,
+        strategies,
+        samples: Number(samples),
+        lot: lot?.ok ? { quantity, sections: lot.sections } : undefined,
+      }),
     onSuccess: () => qc.invalidateQueries({ queryKey: [...productionQueries.all, 'pairing', designId] }),
   });
   const err = (k: keyof typeof local, field: string) => (tried && local[k]) || fieldError(run.error, field);
@@ -124,7 +147,17 @@ function PairingForm({ designId, setDesignId }: { designId: string; setDesignId:
             inputMode="decimal"
             value={within}
             onChange={(e) => setWithin(e.target.value)}
-            note={<Note text={err('within', 'strategies.1.within')} />}
+            note={
+              <>
+                <Note text={err('within', 'strategies.1.within')} />
+                {ownRule && (
+                  <p className="mt-0.5 text-xs text-dim">
+                    The design&apos;s own rule: {ownRule.quantity === 'ia' ? 'Ia' : ownRule.quantity} within ±{' '}
+                    {ownRule.within} %
+                  </p>
+                )}
+              </>
+            }
           />
           <TextField
             id="pairing-width"
@@ -145,15 +178,32 @@ function PairingForm({ designId, setDesignId }: { designId: string; setDesignId:
             note={<Note text={err('bins', 'strategies.2.bins')} />}
           />
           <div className="sm:col-span-3">
+            <label htmlFor="pairing-lot" className="mb-1 block text-xs font-medium text-dim">
+              Measured lot (optional): one envelope per line, the measured quantity of section 1 and section 2
+            </label>
+            <textarea
+              id="pairing-lot"
+              rows={3}
+              className={`${inputClass} num`}
+              placeholder={'1.21, 1.18\n1.05, 1.12'}
+              value={lotText}
+              onChange={(e) => setLotText(e.target.value)}
+              aria-invalid={!!err('lot', 'lot')}
+            />
+            <Note text={err('lot', 'lot')} />
+          </div>
+          <div className="sm:col-span-3">
             <Button type="submit" tone="primary">
               {run.isPending ? 'Comparing…' : 'Compare'}
             </Button>
           </div>
         </fieldset>
         <p className="mt-2 text-xs text-dim">
-          No lot given: tubes come from the design&apos;s tube spread model.
+          {lot?.ok
+            ? `Tubes are drawn from the lot's ${lot.sections.length} envelopes (with replacement).`
+            : "No lot given: tubes come from the design's tube spread model."}
         </p>
-        {run.isError && !namesField(run.error, ['designId', 'samples', 'strategies']) && (
+        {run.isError && !namesField(run.error, ['designId', 'samples', 'strategies', 'lot']) && (
           <div className="mt-3">
             <ErrorNote error={run.error} />
           </div>
@@ -178,8 +228,11 @@ function PairingResult({ study }: { study: PairingStudy }) {
     <div className="space-y-4" data-testid="pairing-result">
       <p className="text-xs text-dim">
         Revision {study.revision}, {formatCount(r.samples)} samples, seed {r.seed}, saved{' '}
-        {formatWhen(study.created_at)}. Parts at their design tolerance cost{' '}
-        {formatMoney(r.partsCost, r.currency)} per unit.
+        {formatWhen(study.created_at)}.{' '}
+        {r.lotSize
+          ? `Tubes from a measured lot of ${formatCount(r.lotSize)} envelopes.`
+          : 'Tubes from the spread model.'}{' '}
+        Parts at their design tolerance cost {formatMoney(r.partsCost, r.currency)} per unit.
       </p>
       <div className="grid gap-4 lg:grid-cols-2">
         <ChartFrame title="Reject rate (95 % interval)" fileName="pairing-reject-rate">
@@ -234,6 +287,9 @@ function PairingResult({ study }: { study: PairingStudy }) {
                 {formatPercent(o.acceptance)}
                 {o.modelAcceptance !== null && o.rule.kind !== 'unmatched' && (
                   <span className="block text-xs text-dim">model {formatPercent(o.modelAcceptance)}</span>
+                )}
+                {o.lotAcceptance != null && (
+                  <span className="block text-xs text-dim">lot {formatPercent(o.lotAcceptance)}</span>
                 )}
               </td>
               <td className="num text-right">{o.tubesThrownPerUnit.toFixed(2)} tubes</td>
