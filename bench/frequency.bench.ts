@@ -8,6 +8,7 @@ import {
   DEFAULT_CHUNK_SIZE,
   designSetup,
   fillUniforms,
+  largeSignalReport,
   nominalFrequencyResponse,
   runSetupChunk,
   type RunPlan,
@@ -88,3 +89,12 @@ const nominal = timeBest(
 console.log(
   `nominalFrequencyResponse (121 frequencies, with the nominal bias solve): ${(nominal.cpu / 100).toFixed(3)} ms per call (cpu)`,
 );
+
+// The large-signal report (drive limits, swings, H2/H3/THD of both plates), nominal.
+const large = timeBest(
+  () => {
+    for (let i = 0; i < 10; i++) largeSignalReport(design);
+  },
+  quick ? 3 : 5,
+);
+console.log(`largeSignalReport (nominal): ${(large.cpu / 10).toFixed(1)} ms per call (cpu)`);

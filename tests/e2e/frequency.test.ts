@@ -29,6 +29,10 @@ describe('engineer works on the frequency response', () => {
         .first()
         .inputValue(),
     ).toBe('20000');
+    // Large-signal figures from the triode model, nominal.
+    expect(await page.getByTestId('large-signal').textContent()).toMatch(
+      /(grid current|cut-off), section \d/,
+    );
     await screenshot(page, '20-frequency-editor');
 
     // Tighten both output coupling capacitors from ±10 % to ±2 % and save a revision.

@@ -38,6 +38,7 @@ export * from './run/setupExtras.js';
 export * from './run/mergeSetupChunks.js';
 export * from './run/setupSampleRows.js';
 export * from './run/designSetup.js';
+export * from './run/largeSignalSpread.js';
 export * from './run/runApi.js';
 export { buildTestDesign } from './run/buildTestDesign.js';
 export * from './lots/andersonDarling.js';

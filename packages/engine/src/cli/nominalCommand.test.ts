@@ -41,6 +41,14 @@ describe('sigmatail nominal', () => {
     expect(r.ia1).toBeLessThan(0.01); // amperes, not milliamperes
     expect(Array.isArray(r.warnings)).toBe(true);
     expect(r.trim.e24.rl2).toBeGreaterThan(0);
+    // Frequency metrics of the example's specs, −3 dB points, and the large-signal figures.
+    expect(r['acBalanceDb@20000']).toBeTypeOf('number');
+    expect(r.fLow1).toBeGreaterThan(0);
+    expect(r.fHigh1).toBeGreaterThan(r.fLow1);
+    expect(r.largeSignal.status).toBe('ok');
+    expect(r.largeSignal.drive).toBeCloseTo(r.largeSignal.driveSymmetric / 2, 12);
+    expect(r.largeSignal.out1.thdPercent).toBeGreaterThan(0);
+    expect(r.largeSignal.swing1).toBeGreaterThan(0);
   });
 
   it.each([

@@ -1,6 +1,7 @@
 import { readFile } from 'node:fs/promises';
 import { parseDesign } from '../design/parseDesign.js';
 import { nominalResults } from '../model/nominalResults.js';
+import { largeSignalReport } from '../model/largeSignalReport.js';
 
 /** Error whose message is the whole one-line report for the user. */
 class InputError extends Error {}
@@ -31,9 +32,14 @@ export async function loadDesignFile(file: string | undefined) {
 /** JSON has no Infinity/NaN: absent or unbounded values print as null. */
 const finiteOrNull = (x: number) => (Number.isFinite(x) ? x : null);
 
+/** A copy with every non-finite number as null. */
+const jsonSafe = (v: unknown): unknown =>
+  JSON.parse(JSON.stringify(v, (_k, x: unknown) => (typeof x === 'number' ? finiteOrNull(x) : x)));
+
 /**
  * `sigmatail nominal FILE.json`: prints one JSON object (SI units) with the gains, impedances,
- * balance, DC point, warnings and trim. Exit 0 ok, 1 no valid bias point (diagnosis printed),
+ * balance, DC point, frequency metrics, warnings, trim and the large-signal figures (drive and
+ * swing limits, H2/H3/THD of each plate at half the symmetrical drive limit). Exit 0 ok, 1 no valid bias point (diagnosis printed),
  * 2 bad input (one line on stderr).
  */
 export async function nominalCommand(args: string[]): Promise<number> {
@@ -62,6 +68,7 @@ export async function nominalCommand(args: string[]): Promise<number> {
     warnings: r.warnings.map((w) => w.message),
     ratings: r.ratings,
     trim: trim ?? null,
+    largeSignal: r.status === 'ok' ? jsonSafe(largeSignalReport(design)) : null,
   };
   process.stdout.write(`${JSON.stringify(report, null, 2)}\n`);
   return r.status === 'ok' ? 0 : 1;

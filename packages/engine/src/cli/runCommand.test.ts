@@ -48,6 +48,14 @@ describe('sigmatail run', () => {
     expect(bal20k.yield).toBeGreaterThan(0.5);
     expect(r.metrics['acBalanceDb@20000'].count).toBe(2000);
     expect(r.influence.spearman['acBalanceDb@20000']).toBeDefined();
+    expect(r.largeSignal).toBeUndefined();
+    out.length = 0;
+    expect(await runCommand([example, '--samples', '40', '--large-signal'])).toBe(0);
+    const ls = JSON.parse(out.join('')).largeSignal;
+    expect(ls.subsample).toBe(32);
+    expect(ls.thd1Percent.count).toBe(32);
+    expect(ls.thd1Percent.min).toBeLessThanOrEqual(ls.thd1Percent.mean);
+    expect(ls.thd1Percent.interval[0]).toBeLessThan(ls.thd1Percent.mean);
     expect(await runCommand([example, '--samples', 'many'])).toBe(2);
     expect(err.join('')).toBe('sigmatail run: --samples must be an integer 1..100000000\n');
   });

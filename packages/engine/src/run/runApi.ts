@@ -6,6 +6,7 @@ import type { RunPlan } from './runPlan.js';
 import type { RunResults } from './runResults.js';
 import { runSetupChunk } from './runSetupChunk.js';
 import { setupExtras } from './setupExtras.js';
+import { largeSignalSpread } from './largeSignalSpread.js';
 import { setupSampleRows } from './setupSampleRows.js';
 
 /**
@@ -43,7 +44,10 @@ export function mergeChunks(
  * Costs about 20 000 + 8192·(d+2) + 2^k kernel evaluations.
  */
 export function runExtras(design: ResolvedDesign, plan: RunPlan): Partial<RunResults> {
-  return setupExtras(designSetup(design), plan);
+  const setup = designSetup(design);
+  const extras = setupExtras(setup, plan);
+  if (plan.analyses?.largeSignal === true) extras.largeSignal = largeSignalSpread(design, setup, plan);
+  return extras;
 }
 
 /**

@@ -6,8 +6,16 @@ import { MAX_SAMPLES, MAX_SEED_LENGTH, MIN_SAMPLES, SAMPLING_PLANS, type Samplin
  */
 export const DEFAULT_CHUNK_SIZE = 65_536;
 
-/** Which once-per-run analyses to include in the results (all default to true). */
-export type RunAnalyses = { influence?: boolean; varianceIndices?: boolean; worstCase?: boolean };
+/**
+ * Which once-per-run analyses to include in the results: influence, variance indices and worst
+ * case default to true; the per-sample large-signal figures (on a subsample) default to false.
+ */
+export type RunAnalyses = {
+  influence?: boolean;
+  varianceIndices?: boolean;
+  worstCase?: boolean;
+  largeSignal?: boolean;
+};
 
 /**
  * A run's sampling plan: samples 1..1e8, seed text, plan kind, chunk size (samples per chunk).

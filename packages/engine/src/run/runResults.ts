@@ -1,6 +1,7 @@
 import type { InfluenceResult } from '../influence/influenceResult.js';
 import type { VarianceIndicesResult } from '../influence/varianceIndices.js';
 import type { WorstCaseResult } from '../worstcase/worstCase.js';
+import type { LargeSignalSpread } from './largeSignalSpread.js';
 
 /** Reported quantile labels and their probabilities. */
 export const REPORTED_QUANTILES = [
@@ -78,6 +79,8 @@ export type RunResults = {
   influence?: InfluenceResult;
   varianceIndices?: VarianceIndicesResult;
   worstCase?: WorstCaseResult;
+  /** Per-sample large-signal figures on a subsample (plan.analyses.largeSignal). */
+  largeSignal?: LargeSignalSpread;
 };
 
 /** The plan kind as stored in results. */

@@ -116,12 +116,14 @@ describe('runs across process crashes', () => {
         .execute();
       expect(retried.length).toBeGreaterThan(0);
 
+      // Fetch first: the direct run below takes seconds, long enough for the server to close the
+      // idle keep-alive connection under the client's next request.
+      const stored = await after.get(`/api/runs/${id}/results`);
       const parsed = parseDesign(exampleDesign());
       if (!parsed.ok) throw new Error('example design does not parse');
       const plan: RunPlan = { samples: 60_000, seed: 'crash-7', plan: 'random', chunkSize: CHUNK };
       const chunks = Array.from({ length: chunkCount(plan) }, (_, k) => runChunk(parsed.design, plan, k));
       const direct = JSON.stringify(mergeChunks(parsed.design, plan, chunks, runExtras(parsed.design, plan)));
-      const stored = await after.get(`/api/runs/${id}/results`);
       expect(
         JSON.stringify(stored.body.results) === direct,
         'results differ from a direct, undisturbed run',

@@ -26,6 +26,7 @@ describe('live nominal results', () => {
     expect(
       screen.getByRole('img', { name: 'Gain of output 1 and output 2 against frequency' }),
     ).toBeInTheDocument();
+    expect(screen.getByTestId('large-signal').textContent).toMatch(/THD out 1 \/ out 2[\d.]+ % \/ [\d.]+ %/);
     expect(screen.getByTestId('corners').textContent).toMatch(/out 1 \d[\d.]* Hz … [\d.]+ [kM]Hz/);
     // A stored version-1 document (no capacitors) still evaluates.
     const v1 = { ...defaultDesign(), version: 1 };

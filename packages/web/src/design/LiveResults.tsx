@@ -2,6 +2,7 @@ import type { ReactNode } from 'react';
 import { formatSi, formatSig } from '../format/formatSi.js';
 import type { NominalState } from './useNominal.js';
 import { FrequencyPanel } from './FrequencyPanel.js';
+import { LargeSignalPanel } from './LargeSignalPanel.js';
 
 function Row({ label, children, warn = false }: { label: ReactNode; children: ReactNode; warn?: boolean }) {
   return (
@@ -168,6 +169,7 @@ export function LiveResults({ state }: { state: NominalState }) {
             </div>
           )}
           <FrequencyPanel design={state.design} metrics={m} />
+          <LargeSignalPanel design={state.design} />
         </>
       )}
     </section>
