@@ -1,4 +1,4 @@
-import type { PartName, ResolvedDesign } from '../design/designSchema.js';
+import { CAPACITOR_PARTS, type PartName, type ResolvedDesign } from '../design/designSchema.js';
 import { INPUTS } from '../model/stageKernel.js';
 import { normalQuantile } from '../spread/normalQuantile.js';
 import { DEFAULT_RESISTOR_KIND } from '../values/resistorKinds.js';
@@ -69,7 +69,8 @@ export function applyAgeing(
   const aged = fresh.map((col, i) => {
     const id = INPUTS[i];
     const part = design.parts[id as PartName];
-    if (part) {
+    // Resistors drift by kind; capacitors are left as made (the scenario has no capacitor ageing yet).
+    if (part && !(CAPACITOR_PARTS as readonly string[]).includes(id)) {
       const d = scenario.resistors[part.kind ?? DEFAULT_RESISTOR_KIND];
       const z = commonUniforms(seed, 'ageing', id, n);
       return col.map((v, s) => v * (1 + (d.shift + d.sd * normalQuantile(z[s])) / 100));
@@ -119,6 +120,7 @@ function side(design: ResolvedDesign, judge: SampleJudge, columns: Float64Array[
     );
     return {
       metric: spec.metric,
+      frequency: spec.frequency ?? null,
       label: spec.label ?? null,
       min: spec.min ?? null,
       max: spec.max ?? null,

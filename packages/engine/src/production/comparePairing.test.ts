@@ -1,9 +1,15 @@
+import { readFileSync } from 'node:fs';
 import jStat from 'jstat';
 import { describe, expect, it } from 'vitest';
+import { CAPACITOR_PARTS } from '../design/designSchema.js';
+import { parseDesign } from '../design/parseDesign.js';
 import { buildTestDesign } from '../run/buildTestDesign.js';
 import { tubeColumns } from './commonDraws.js';
 import { comparePairing, modelAcceptance } from './comparePairing.js';
-import type { PriceTable } from './priceTable.js';
+import { partPrice, type PriceTable } from './priceTable.js';
+import { createSampleJudge } from './sampleJudge.js';
+
+const GUITAR = new URL('../../examples/guitar-12ax7-cap-coupled.json', import.meta.url);
 
 const prices: PriceTable = {
   currency: 'EUR',
@@ -69,5 +75,26 @@ describe('comparePairing', () => {
     expect(() => comparePairing(design, { ...prices, resistors: [] }, [{ kind: 'unmatched' }])).toThrow(
       /^prices.resistors/,
     );
+  });
+});
+
+describe('comparePairing on a design with capacitors and frequency specs', () => {
+  it('prices only the resistors and judges the frequency specs', () => {
+    const parsed = parseDesign(JSON.parse(readFileSync(GUITAR, 'utf8')));
+    if (!parsed.ok) throw new Error('example does not parse');
+    const d = parsed.design;
+    expect(d.parts.cout1).toBeDefined();
+    expect(d.specs.some((s) => s.frequency !== undefined)).toBe(true);
+    const judge = createSampleJudge(d);
+    expect(judge.specMetric.every((m) => m >= 0)).toBe(true); // every spec, frequency ones too, has its column
+    const r = comparePairing(d, prices, [{ kind: 'unmatched' }], { samples: 500, seed: 'caps' });
+    const resistors = Object.entries(d.parts).filter(
+      ([name, p]) => p && !(CAPACITOR_PARTS as readonly string[]).includes(name),
+    );
+    const expected = resistors.reduce(
+      (sum, [, p]) => sum + partPrice(prices, 'metal-film', p!.tolerance)!,
+      0,
+    );
+    expect(r.partsCost).toBeCloseTo(expected, 12);
   });
 });

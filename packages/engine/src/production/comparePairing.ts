@@ -1,4 +1,4 @@
-import type { PartName, ResolvedDesign } from '../design/designSchema.js';
+import { CAPACITOR_PARTS, type PartName, type ResolvedDesign } from '../design/designSchema.js';
 import { normalCdf } from '../spread/normalCdf.js';
 import { prepareTubeSpread } from '../spread/tubeSpread.js';
 import { DEFAULT_RESISTOR_KIND } from '../values/resistorKinds.js';
@@ -36,6 +36,7 @@ export type PairingOutcome = {
 export type PairingComparison = {
   samples: number;
   seed: string;
+  /** Price of the resistors at their tolerance classes (capacitors are not in the price table). */
   partsCost: number;
   /** Envelopes in the lot the tubes came from; null = the design's spread model. */
   lotSize: number | null;
@@ -62,7 +63,8 @@ export function comparePairing(
   const seed = options.seed ?? 'pairing';
   let partsCost = 0;
   for (const [name, part] of Object.entries(design.parts)) {
-    if (!part) continue;
+    // The price table lists resistors; capacitors are not in the parts cost.
+    if (!part || (CAPACITOR_PARTS as readonly string[]).includes(name)) continue;
     const kind = part.kind ?? DEFAULT_RESISTOR_KIND;
     const price = partPrice(prices, kind, part.tolerance);
     if (price === null)

@@ -1,4 +1,5 @@
 import type { ResolvedDesign } from '../design/designSchema.js';
+import { CORNER_METRIC_IDS, specColumnId } from '../model/metrics.js';
 import { createStageKernel, INPUTS, type StageKernel } from '../model/stageKernel.js';
 
 /** Samples per kernel call: small, so a candidate that fails early stops after little work. */
@@ -33,8 +34,10 @@ export type SampleJudge = {
  * @example const j = createSampleJudge(design); countFailures(j, columns, n, null, Infinity).fails
  */
 export function createSampleJudge(design: ResolvedDesign): SampleJudge {
-  const kernel = createStageKernel(design, { dcPerSample: true });
-  const specMetric = design.specs.map((s) => kernel.metrics.indexOf(s.metric));
+  // Only what the specs read: −3 dB points when a spec is on one, never the balance band.
+  const corners = design.specs.some((s) => (CORNER_METRIC_IDS as readonly string[]).includes(s.metric));
+  const kernel = createStageKernel(design, { dcPerSample: true, corners, band: false });
+  const specMetric = design.specs.map((s) => kernel.metrics.indexOf(specColumnId(s)));
   return {
     kernel,
     lo: design.specs.map((s) => s.min ?? -Infinity),
