@@ -55,6 +55,9 @@ describe('streamSamplesCsv', () => {
       if (bytes > 200_000) s.destroy();
     });
     await streamSamplesCsv(sink, design, { ...plan, samples: 1_000_000 }, pool.slice);
-    expect(stats().bytes).toBeLessThan(2_000_000);
+    // At most the slice being written when the client left and the one computed meanwhile
+    // (2 000 rows each), not the million rows of the run.
+    const rows = stats().text.split('\n').length - 1;
+    expect(rows).toBeLessThan(6_000);
   });
 });
