@@ -16,7 +16,8 @@ const DESIGN = 'FL-50 driver: 12AX7 cap-coupled splitter';
 describe('production lead: lots and test limits', () => {
   it('uploads a lot, sees a malformed one refused, applies a lot to a design and computes a guard band', async () => {
     const page = await signIn(h.browser, h.baseUrl, 'production@fenwick.example');
-    await page.getByRole('link', { name: 'Lots', exact: true }).click();
+    await page.getByRole('link', { name: 'Production', exact: true }).click();
+    await page.getByRole('link', { name: /^Measured lots/ }).click();
     await page.getByRole('link', { name: '12AX7 incoming, box 3' }).waitFor();
     await screenshot(page, '20-lots-list');
 
@@ -75,7 +76,8 @@ describe('production lead: lots and test limits', () => {
     await expect(page.getByTestId('tube-lot').textContent()).resolves.toContain('12AX7 incoming, box 3');
     await page.getByText('lot: Rk reel 15 (120)').waitFor();
     await screenshot(page, '23b-revision-with-lots');
-    await page.getByRole('link', { name: 'Lots', exact: true }).click();
+    await page.getByRole('link', { name: 'Production', exact: true }).click();
+    await page.getByRole('link', { name: /^Measured lots/ }).click();
 
     // Guard band calculator: a field error first, then the answer.
     await page.getByRole('link', { name: /Test limits and guard bands/ }).click();
