@@ -254,13 +254,13 @@ export interface ProductionPlansTable {
   created_at: CreatedAt;
 }
 
-/** A saved pairing comparison or ageing result of one design revision. */
+/** A saved pairing comparison, ageing result or chosen test limits of one design revision. */
 export interface ProductionStudiesTable {
   id: Generated<string>;
   workspace_id: string;
   design_id: string;
   revision: number;
-  kind: 'pairing' | 'ageing';
+  kind: 'pairing' | 'ageing' | 'limits';
   created_by: string | null;
   input: Json<unknown>;
   result: Json<unknown>;

@@ -14,6 +14,8 @@ import { studyColumns } from './studyColumns.js';
  */
 export type SpecMargin = {
   metric: string;
+  /** The spec's frequency (Hz) for a frequency metric, else null. */
+  frequency: number | null;
   label: string | null;
   min: number | null;
   max: number | null;

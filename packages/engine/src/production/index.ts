@@ -1,6 +1,7 @@
 // Production planning: prices, tolerance plans, pairing strategies and ageing (pure).
 export * from './priceTable.js';
 export * from './envelopeRule.js';
+export * from './ruleLabel.js';
 export * from './applyPlan.js';
 export * from './rejectBounds.js';
 export * from './commonDraws.js';

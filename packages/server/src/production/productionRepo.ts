@@ -116,6 +116,9 @@ export async function listPlans(db: Kysely<Database>, workspaceId: string, desig
   return q.orderBy('p.created_at', 'desc').limit(100).execute();
 }
 
+/** What a saved study holds: a pairing comparison, an ageing result or chosen test limits. */
+export type StudyKind = 'pairing' | 'ageing' | 'limits';
+
 export async function insertStudy(
   db: Kysely<Database>,
   v: {
@@ -123,7 +126,7 @@ export async function insertStudy(
     designId: string;
     revision: number;
     userId: string;
-    kind: 'pairing' | 'ageing';
+    kind: StudyKind;
     input: unknown;
     result: unknown;
   },
@@ -149,7 +152,7 @@ export async function latestStudy(
   db: Kysely<Database>,
   workspaceId: string,
   designId: string,
-  kind: 'pairing' | 'ageing',
+  kind: StudyKind,
 ) {
   return db
     .selectFrom('production_studies')

@@ -3,6 +3,9 @@ import { cpkInterval, nominalResults, parseDesign, type RunResults } from '@sigm
 import type { Kysely } from 'kysely';
 import { findDesign } from '../designs/designsRepo.js';
 import { HttpError } from '../http/httpError.js';
+import { presentPlan } from '../production/presentPlan.js';
+import { latestStudy, listPlans } from '../production/productionRepo.js';
+import { reportAgeing, reportLimits, reportPairing, reportPlan } from './reportSections.js';
 
 /** One spec's line in the report: limits, yield with its 95 % Wilson interval, PPM, Cp, Cpk (95 % interval). */
 export type ReportSpec = {
@@ -30,6 +33,49 @@ export type ReportRun = {
   specs: ReportSpec[];
 };
 
+/** A reject rate in PPM with its 95 % interval. */
+export type PpmInterval = { ppm: number; lowPpm: number; highPpm: number };
+
+/** The latest saved tolerance plan of the design: the chosen classes and cost, estimate beside the confirming run. */
+export type ReportPlan = {
+  id: string;
+  createdAt: string;
+  targetPpm: number;
+  currency: string;
+  chosen: { classes: Record<string, number>; tube: string; cost: number; estimate: PpmInterval } | null;
+  confirm: { runId: string; status: string; samples: number; result: PpmInterval | null } | null;
+};
+
+/** The latest saved pairing comparison: per strategy, reject rate, cost per good unit, tubes thrown away. */
+export type ReportPairing = {
+  createdAt: string;
+  revision: number;
+  currency: string | null;
+  lotSize: number | null;
+  strategies: { label: string; reject: PpmInterval; costPerGoodUnit: number; tubesThrownPerUnit: number }[];
+};
+
+/** The latest saved ageing result: reject rate new and aged, and each spec's margin after ageing. */
+export type ReportAgeing = {
+  createdAt: string;
+  revision: number;
+  asNew: PpmInterval;
+  aged: PpmInterval;
+  specs: { label: string; margin: number; marginSd: number | null }[];
+};
+
+/** The chosen end-of-line test limits of one metric, with their false-accept and false-reject rates. */
+export type ReportLimits = {
+  createdAt: string;
+  metric: string | null;
+  measurementSd: number;
+  spec: { low?: number; high?: number };
+  test: { low?: number; high?: number };
+  falseAcceptPpm: number;
+  falseRejectPpm: number;
+  guardBand: number | null;
+};
+
 /** Everything the production report of one design shows (plain JSON). */
 export type ProductionReport = {
   workspace: { name: string };
@@ -37,6 +83,10 @@ export type ProductionReport = {
   /** Ratings exceeded at nominal (plate dissipation, heater–cathode voltage, …). */
   warnings: { code: string; message: string }[];
   run: ReportRun | null;
+  plan: ReportPlan | null;
+  pairing: ReportPairing | null;
+  ageing: ReportAgeing | null;
+  limits: ReportLimits | null;
   generatedAt: string;
 };
 
@@ -96,7 +146,7 @@ export async function buildProductionReport(
 ): Promise<ProductionReport> {
   const design = await findDesign(db, workspaceId, designId);
   if (!design) throw new HttpError(404, 'design not found', 'designId');
-  const [revision, workspace, run] = await Promise.all([
+  const [revision, workspace, run, plans, pairing, ageing, limits] = await Promise.all([
     db
       .selectFrom('design_revisions')
       .select('document')
@@ -105,7 +155,12 @@ export async function buildProductionReport(
       .executeTakeFirstOrThrow(),
     db.selectFrom('workspaces').select('name').where('id', '=', workspaceId).executeTakeFirstOrThrow(),
     latestDoneRun(db, workspaceId, design.id),
+    listPlans(db, workspaceId, design.id),
+    latestStudy(db, workspaceId, design.id, 'pairing'),
+    latestStudy(db, workspaceId, design.id, 'ageing'),
+    latestStudy(db, workspaceId, design.id, 'limits'),
   ]);
+  const plan = plans[0] ? await presentPlan(db, workspaceId, plans[0]) : null;
   const parsed = parseDesign(revision.document);
   const warnings = parsed.ok
     ? nominalResults(parsed.design).warnings.map((w) => ({ code: w.code, message: w.message }))
@@ -121,6 +176,10 @@ export async function buildProductionReport(
     },
     warnings,
     run: run ? reportRun(run) : null,
+    plan: plan && reportPlan(plan),
+    pairing: pairing ? reportPairing(pairing) : null,
+    ageing: ageing ? reportAgeing(ageing) : null,
+    limits: limits ? reportLimits(limits) : null,
     generatedAt: new Date().toISOString(),
   };
 }

@@ -73,6 +73,61 @@ describe('production report', () => {
     expect(report.run.specs[0].cpkInterval).toEqual(cpkInterval(s0.cpk, s0.samples)); // as the results page shows it
   });
 
+  it('shows the plan, pairing, ageing and test limits saved for the design', async () => {
+    const empty = (await viewer.get(`/api/reports/${designId}`)).body.report;
+    expect([empty.plan, empty.pairing, empty.ageing, empty.limits]).toEqual([null, null, null, null]);
+
+    const prices = {
+      currency: 'EUR',
+      resistors: [5, 1].map((tolerance, i) => ({ kind: 'metal-film', tolerance, price: [0.03, 0.08][i] })),
+      tubes: { unmatched: 14, matched: 19 },
+    };
+    expect((await production.request('PUT', '/api/prices', prices)).status).toBe(200);
+    const plan = await production.post('/api/plans', { designId, targetPpm: 20_000, samples: 4_000 });
+    expect(plan.status).toBe(201);
+    const strategies = [{ kind: 'unmatched' }, { kind: 'matched', quantity: 'gm', within: 10 }];
+    expect((await production.post('/api/pairing', { designId, samples: 2_000, strategies })).status).toBe(
+      201,
+    );
+    expect((await production.post('/api/ageing', { designId, samples: 2_000 })).status).toBe(201);
+    const limitsBody = {
+      process: { runId, metric: 'balanceDb' },
+      measurementSd: 0.05,
+      spec: { low: -0.5, high: 0.5 },
+      targetFalseAcceptPpm: 100,
+      save: true,
+    };
+    expect((await viewer.post('/api/test-limits', limitsBody)).status).toBe(403);
+    const given = await production.post('/api/test-limits', {
+      ...limitsBody,
+      process: { mean: 0, sd: 0.2 },
+    });
+    expect(given.status).toBe(400);
+    expect(given.body.error.field).toBe('save');
+    const limits = await production.post('/api/test-limits', limitsBody);
+    expect(limits.status).toBe(200);
+    expect(limits.body.saved.id).toMatch(/^[0-9a-f-]{36}$/);
+
+    const { report } = (await viewer.get(`/api/reports/${designId}`)).body;
+    expect(report.plan.id).toBe(plan.body.plan.id);
+    expect(report.plan.targetPpm).toBe(20_000);
+    expect(report.pairing.strategies.map((x: { label: string }) => x.label)).toEqual([
+      'Unmatched',
+      'Matched: gm within ± 10 %',
+    ]);
+    expect(report.ageing.specs.length).toBeGreaterThan(0);
+    expect(report.limits).toMatchObject({ metric: 'balanceDb', measurementSd: 0.05 });
+    expect(report.limits.falseAcceptPpm).toBeCloseTo(limits.body.rates.falseAccept * 1e6, 6);
+
+    const to = `planner-${crypto.randomBytes(3).toString('hex')}@fixture.example`;
+    expect((await production.post(`/api/reports/${designId}/email`, { to })).status).toBe(200);
+    const mail = await readMail(app.deps.db, to);
+    expect(mail.text).toContain('Tolerance plan (target 20,000 PPM)');
+    expect(mail.text).toContain('Pairing: Matched: gm within ± 10 %');
+    expect(mail.text).toContain('Reject rate new / aged');
+    expect(mail.text).toContain('Test limits (balanceDb)');
+  });
+
   it('is mailed by production to a colleague and lands in the inbox with the figures and the caution', async () => {
     const to = `colleague-${crypto.randomBytes(3).toString('hex')}@fixture.example`;
     const res = await production.post(`/api/reports/${designId}/email`, { to, note: 'For Friday <3' });
@@ -88,6 +143,7 @@ describe('production report', () => {
       .select(['action', 'detail'])
       .where('target', '=', designId)
       .where('action', '=', 'report.email')
+      .orderBy('at', 'desc')
       .executeTakeFirstOrThrow();
     expect(audit.detail).toMatchObject({ to, runId });
   });

@@ -19,7 +19,7 @@ import { DesignPicker } from '../production/DesignPicker.js';
 import { fieldError, namesField } from '../production/fieldError.js';
 import { formatMoney } from '../production/formatMoney.js';
 import { parseLot } from '../production/parseLot.js';
-import { ruleLabel } from '../production/ruleLabel.js';
+import { ruleLabel } from '@sigmatail/engine';
 
 type Quantity = 'ia' | 'gm' | 'mu';
 

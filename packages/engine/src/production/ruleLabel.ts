@@ -1,4 +1,4 @@
-import type { EnvelopeRule } from '@sigmatail/engine';
+import type { EnvelopeRule } from './envelopeRule.js';
 
 const Q: Record<'ia' | 'gm' | 'mu', string> = { ia: 'Ia', gm: 'gm', mu: 'mu' };
 
