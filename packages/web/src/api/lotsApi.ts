@@ -49,6 +49,8 @@ export interface TestLimitsRequest {
   spec: Limits;
   test?: Limits;
   targetFalseAcceptPpm?: number;
+  /** Keep as the chosen test limits of the run's design (process from a run only). */
+  save?: boolean;
 }
 
 export interface TestLimitsAnswer {
@@ -57,6 +59,8 @@ export interface TestLimitsAnswer {
   test: Limits;
   rates: TestLimitRates;
   suggestion: GuardBandSuggestion | null;
+  /** Set when the limits were saved for the run's design. */
+  saved?: { id: string } | null;
 }
 
 const enc = encodeURIComponent;

@@ -164,5 +164,44 @@ export interface ProductionReport {
     joint: { yield: number; wilson: [number, number]; clopperPearson: [number, number]; ppm: number };
     specs: ReportSpec[];
   } | null;
+  plan: {
+    id: string;
+    createdAt: string;
+    targetPpm: number;
+    currency: string;
+    chosen: { classes: Record<string, number>; tube: string; cost: number; estimate: PpmInterval } | null;
+    confirm: { runId: string; status: string; samples: number; result: PpmInterval | null } | null;
+  } | null;
+  pairing: {
+    createdAt: string;
+    revision: number;
+    currency: string | null;
+    lotSize: number | null;
+    strategies: { label: string; reject: PpmInterval; costPerGoodUnit: number; tubesThrownPerUnit: number }[];
+  } | null;
+  ageing: {
+    createdAt: string;
+    revision: number;
+    asNew: PpmInterval;
+    aged: PpmInterval;
+    specs: { label: string; margin: number; marginSd: number | null }[];
+  } | null;
+  limits: {
+    createdAt: string;
+    metric: string | null;
+    measurementSd: number;
+    spec: { low?: number; high?: number };
+    test: { low?: number; high?: number };
+    falseAcceptPpm: number;
+    falseRejectPpm: number;
+    guardBand: number | null;
+  } | null;
   generatedAt: string;
+}
+
+/** A reject rate in PPM with its 95 % interval. */
+export interface PpmInterval {
+  ppm: number;
+  lowPpm: number;
+  highPpm: number;
 }

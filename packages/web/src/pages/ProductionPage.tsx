@@ -1,5 +1,6 @@
 import { useQuery } from '@tanstack/react-query';
 import { Link } from 'react-router';
+import { designQueries } from '../api/queries/designQueries.js';
 import { productionQueries } from '../api/queries/productionQueries.js';
 import { QueryStatus } from '../components/QueryState.js';
 import { PageTitle, Panel } from '../components/ui.js';
@@ -34,6 +35,7 @@ const AREAS = [
 /** The production lead's home: the planning areas and the latest saved plans. */
 export function ProductionPage() {
   const plans = useQuery(productionQueries.plans());
+  const designs = useQuery(designQueries.list(''));
   return (
     <div className="space-y-5">
       <PageTitle sub="Plan tolerances and tube pairing for the parts you buy, and see how units age.">
@@ -64,6 +66,24 @@ export function ProductionPage() {
                   ? `${formatMoney(p.result.chosen.cost, p.result.currency)} per unit · ${formatPpm(p.result.chosen.rejectPpm)}`
                   : 'no plan meets the target'}
               </span>
+            </li>
+          ))}
+        </ul>
+      </Panel>
+      <Panel title="Production reports">
+        <QueryStatus query={designs} label="Loading designs…" />
+        <p className="mb-2 text-sm text-dim">
+          One printable page per design: yield, PPM and Cpk, the plan, pairing, ageing margin and test limits.
+        </p>
+        <ul className="grid gap-1 sm:grid-cols-2">
+          {designs.data?.map((d) => (
+            <li key={d.id} className="text-sm">
+              <Link
+                to={`/production/report/${d.id}`}
+                className="text-petrol underline-offset-2 hover:underline"
+              >
+                {d.name}
+              </Link>
             </li>
           ))}
         </ul>

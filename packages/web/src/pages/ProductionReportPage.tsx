@@ -9,6 +9,7 @@ import { Button, Panel } from '../components/ui.js';
 import { formatCount } from '../format/formatSi.js';
 import { formatWhen } from '../format/formatWhen.js';
 import { ReportEmailForm } from '../reports/ReportEmailForm.js';
+import { ReportProductionSections } from '../reports/ReportProductionSections.js';
 import { ReportYieldTable } from '../reports/ReportYieldTable.js';
 
 /** The production report of one design, laid out for A4/Letter paper, with the high-voltage caution. */
@@ -69,6 +70,7 @@ export function ProductionReportPage() {
           </p>
         )}
       </Panel>
+      <ReportProductionSections report={r} />
       {can(me.role, 'export') && <ReportEmailForm designId={r.design.id} />}
       <SafetyCaution />
     </article>

@@ -3,6 +3,8 @@ import { useMutation, useQuery } from '@tanstack/react-query';
 import { useState, type FormEvent } from 'react';
 import { Link } from 'react-router';
 import { ApiError } from '../api/client.js';
+import { can } from '../auth/permissions.js';
+import { useMe } from '../auth/useMe.js';
 import { lotsApi } from '../api/lotsApi.js';
 import { runQueries } from '../api/queries/runQueries.js';
 import { ChartFrame } from '../charts/ChartFrame.js';
@@ -32,6 +34,7 @@ const START: TestLimitsForm = {
 /** Guard band calculator: false accept / false reject of test limits, and a guard band for a target. */
 export function TestLimitsPage() {
   const [f, setF] = useState<TestLimitsForm>(START);
+  const maySave = can(useMe().role, 'planProduction');
   const [errors, setErrors] = useState<Record<string, string>>({});
   const runs = useQuery({ ...runQueries.list(), enabled: f.source === 'run' });
   const compute = useMutation({
@@ -49,7 +52,7 @@ export function TestLimitsPage() {
         {errors[k]}
       </p>
     ) : null;
-  const num = (id: keyof TestLimitsForm, label: string, placeholder?: string) => (
+  const num = (id: Exclude<keyof TestLimitsForm, 'save' | 'source'>, label: string, placeholder?: string) => (
     <TextField
       id={`tl-${id}`}
       label={label}
@@ -117,6 +120,16 @@ export function TestLimitsPage() {
                   />
                   {note('metric')}
                 </div>
+                {maySave && (
+                  <label className="flex items-center gap-2 self-end pb-2 text-sm">
+                    <input
+                      type="checkbox"
+                      checked={f.save ?? false}
+                      onChange={(e) => setF({ ...f, save: e.target.checked })}
+                    />
+                    Save as this design’s test limits (shown in its production report)
+                  </label>
+                )}
               </>
             )}
             {num('measurementSd', 'Measurement sd (same unit)')}
@@ -132,6 +145,11 @@ export function TestLimitsPage() {
           </Button>
         </form>
       </Panel>
+      {a?.saved && (
+        <p role="status" className="text-sm text-moss">
+          Saved as the test limits of the run’s design; its production report shows them.
+        </p>
+      )}
       {a && (
         <Panel title="Results">
           <div className="grid gap-4 lg:grid-cols-2">

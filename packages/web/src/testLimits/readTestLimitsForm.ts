@@ -13,6 +13,8 @@ export type TestLimitsForm = {
   testLow: string;
   testHigh: string;
   targetPpm: string;
+  /** Save as the chosen test limits of the run's design (source 'run' only). */
+  save?: boolean;
 };
 
 const num = (s: string) => (s.trim() === '' ? undefined : Number(s));
@@ -72,6 +74,7 @@ export function readTestLimitsForm(f: TestLimitsForm): {
       spec: { low: specLow, high: specHigh },
       ...(test ? { test } : {}),
       ...(target !== undefined ? { targetFalseAcceptPpm: target } : {}),
+      ...(f.save && f.source === 'run' ? { save: true } : {}),
     },
   };
 }
@@ -88,5 +91,6 @@ export const SERVER_FIELD: Record<string, keyof TestLimitsForm> = {
   'spec.high': 'specHigh',
   'test.low': 'testLow',
   'test.high': 'testHigh',
+  save: 'runId',
   targetFalseAcceptPpm: 'targetPpm',
 };
