@@ -15,7 +15,7 @@ describe('production lead plans tolerances, compares pairing and ages a design',
   it('plans to a PPM target (frontier, chosen plan, confirming run), compares pairing, applies ageing', async () => {
     const page = await signIn(h.browser, h.baseUrl, 'production@fenwick.example');
     await page.getByRole('link', { name: 'Production', exact: true }).click();
-    await page.getByRole('heading', { name: 'Production' }).waitFor();
+    await page.getByRole('heading', { name: 'Production', exact: true }).waitFor();
     // The seeded plan of the demo guitar design is listed.
     await page.getByRole('link', { name: /Combo 40 phase splitter rev 1/ }).waitFor();
     await screenshot(page, '20-production-home');
