@@ -74,7 +74,7 @@ describe('production lead plans tolerances, compares pairing and ages a design',
     await screenshot(page, '23-pairing');
 
     // The same comparison with tubes from a measured lot (Ia of each section, mA).
-    const lotBox = pairing.getByLabel(/Measured lot/);
+    const lotBox = pairing.getByLabel(/paste a measured lot/);
     await lotBox.fill('1.21, 1.18\n1.05, x');
     await pairing.getByRole('button', { name: 'Compare' }).click();
     await pairing.getByText('line 2: two positive numbers (section 1, section 2)').waitFor();
@@ -82,6 +82,12 @@ describe('production lead plans tolerances, compares pairing and ages a design',
     await pairing.getByRole('button', { name: 'Compare' }).click();
     await page.getByText('Tubes from a measured lot of 6 envelopes.').waitFor();
     await screenshot(page, '23a-pairing-lot');
+    // And from the workshop's stored tube lot, chosen by name: whole envelopes as measured.
+    await pairing
+      .getByLabel('Stored tube lot (optional)')
+      .selectOption({ label: '12AX7 incoming, box 3 · 12AX7 · 200 envelopes' });
+    await pairing.getByRole('button', { name: 'Compare' }).click();
+    await page.getByText('Tubes from a measured lot of 200 envelopes.').waitFor();
 
     await page.getByRole('link', { name: 'Production', exact: true }).click();
     await page.getByRole('link', { name: /Ageing/ }).click();

@@ -104,8 +104,8 @@ export function tubeColumns(
       if (lot) {
         // An envelope of the lot, drawn with replacement; what it did not measure stays modelled.
         const k = Math.min(len - 1, Math.floor(pick * len));
-        if (lot.quantity === 'mu') [m1, m2] = [lot.mu1[k], lot.mu2[k]];
-        else [p1, p2] = [lot.perv1[k], lot.perv2[k]];
+        if (lot.quantity !== 'mu') [p1, p2] = [lot.perv1[k], lot.perv2[k]];
+        if (lot.quantity === 'mu' || lot.quantity === 'multipliers') [m1, m2] = [lot.mu1[k], lot.mu2[k]];
       }
       out.perv1[s] = p1;
       out.perv2[s] = p2;

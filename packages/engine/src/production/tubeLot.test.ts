@@ -81,3 +81,32 @@ describe('tube lots', () => {
     expect(r.outcomes[0].lotAcceptance).toBe(1);
   });
 });
+
+describe('stored lots (whole-tube multipliers)', () => {
+  const tubes = [
+    [1.02, 0.97, 1.01, 0.99],
+    [0.9, 0.92, 1.03, 1.02],
+    [1.1, 1.04, 0.98, 1.0],
+  ];
+  it('keeps both quantities of each envelope as stored', () => {
+    const p = prepareLot({ quantity: 'multipliers', tubes });
+    expect([...p.perv1]).toEqual([1.02, 0.9, 1.1]);
+    expect([...p.mu2]).toEqual([0.99, 1.02, 1.0]);
+    // By hand, |perv1/perv2 − 1|: 1.02/0.97 → 5.2 %, 0.9/0.92 → 2.2 %, 1.1/1.04 → 5.8 %; one of three within 5 %.
+    expect(lotAcceptance(p, { kind: 'matched', quantity: 'ia', within: 5 })).toBeCloseTo(1 / 3, 15);
+    // mu is measured too: 1.01/0.99, 1.03/1.02 and 0.98/1.0 are all within 5 %.
+    expect(lotAcceptance(p, { kind: 'matched', quantity: 'mu', within: 5 })).toBe(1);
+    expect(() => prepareLot({ quantity: 'multipliers', tubes: [[1, 1, 1]] })).toThrow(/lot\.tubes\.0/);
+    expect(() => prepareLot({ quantity: 'multipliers', tubes: [] })).toThrow(/lot\.tubes/);
+  });
+
+  it('draws every sampled tube from the lot, mu included', () => {
+    const r = comparePairing(buildTestDesign(), prices, [{ kind: 'unmatched' }], {
+      samples: 400,
+      seed: 'stored',
+      lot: { quantity: 'multipliers', tubes },
+    });
+    expect(r.lotSize).toBe(3);
+    expect(r.outcomes[0]!.lotAcceptance).toBe(1);
+  });
+});

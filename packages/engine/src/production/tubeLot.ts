@@ -7,11 +7,17 @@ import { envelopeAccepted, type EnvelopeRule } from './envelopeRule.js';
  *
  * @example { quantity: 'ia', sections: [[1.21, 1.18], [1.05, 1.12]] } // mA
  */
-export type TubeLot = { quantity: 'ia' | 'gm' | 'mu'; sections: readonly (readonly [number, number])[] };
+export type TubeLot =
+  | { quantity: 'ia' | 'gm' | 'mu'; sections: readonly (readonly [number, number])[] }
+  /**
+   * A stored lot: per envelope the spread multipliers [perv1, perv2, mu1, mu2] of its sections,
+   * relative to the catalog model (as the lot upload converts them). Both quantities are measured.
+   */
+  | { quantity: 'multipliers'; tubes: readonly (readonly number[])[] };
 
-/** A lot turned into section multipliers (value over the lot's median section). */
+/** A lot turned into section multipliers (NaN where the lot did not measure a quantity). */
 export type PreparedLot = {
-  quantity: 'ia' | 'gm' | 'mu';
+  quantity: TubeLot['quantity'];
   perv1: Float64Array;
   perv2: Float64Array;
   mu1: Float64Array;
@@ -27,6 +33,7 @@ export type PreparedLot = {
  * @example prepareLot({ quantity: 'ia', sections: [[1, 1.1]] }).perv2[0] // 1.1 / 1.05
  */
 export function prepareLot(lot: TubeLot): PreparedLot {
+  if (lot.quantity === 'multipliers') return prepareMultipliers(lot.tubes);
   const n = lot.sections.length;
   if (n === 0) throw new RangeError('lot.sections must hold at least one envelope');
   const all: number[] = [];
@@ -48,6 +55,17 @@ export function prepareLot(lot: TubeLot): PreparedLot {
     mu1: col(0, isMu),
     mu2: col(1, isMu),
   };
+}
+
+/** A stored lot's multipliers as they are (they are already relative to the model). */
+function prepareMultipliers(tubes: readonly (readonly number[])[]): PreparedLot {
+  if (tubes.length === 0) throw new RangeError('lot.tubes must hold at least one envelope');
+  tubes.forEach((t, i) => {
+    if (t.length !== 4 || !t.every((v) => v > 0 && Number.isFinite(v)))
+      throw new RangeError(`lot.tubes.${i} must be four positive numbers [perv1, perv2, mu1, mu2]`);
+  });
+  const col = (k: number) => Float64Array.from(tubes, (t) => t[k]!);
+  return { quantity: 'multipliers', perv1: col(0), perv2: col(1), mu1: col(2), mu2: col(3) };
 }
 
 /**

@@ -4,6 +4,7 @@ import { buildTeam, buildUser, type BuiltUser } from '../testing/buildUser.js';
 import { signIn } from '../testing/signIn.js';
 import { startTestApp, type TestApp } from '../testing/startTestApp.js';
 import type { TestClient } from '../testing/testClient.js';
+import { uploadLot } from '../testing/uploadLot.js';
 import { exampleDesign } from '../runs/testing/exampleDesign.js';
 
 let app: TestApp;
@@ -14,23 +15,7 @@ let viewer: TestClient;
 let stranger: TestClient;
 let designId: string;
 
-/** POSTs a multipart form like the browser's FormData upload, with the client's session. */
-async function upload(
-  client: TestClient,
-  fields: Record<string, string>,
-  csv?: string | Buffer,
-  fileField = 'file',
-) {
-  const fd = new FormData();
-  for (const [k, v] of Object.entries(fields)) fd.append(k, v);
-  if (csv !== undefined) fd.append(fileField, new Blob([csv], { type: 'text/csv' }), 'lot.csv');
-  const res = await fetch(`${client.baseUrl}/api/lots`, {
-    method: 'POST',
-    headers: client.cookie ? { cookie: client.cookie } : {},
-    body: fd,
-  });
-  return { status: res.status, body: (await res.json()) as any }; // eslint-disable-line @typescript-eslint/no-explicit-any
-}
+const upload = uploadLot;
 
 /** A seeded-looking resistor lot: 200 values around 470 Ω, deterministic. */
 const RK_VALUES = Array.from(

@@ -1,7 +1,8 @@
-import type { Database } from '@sigmatail/db';
-import { parseDesign, type PriceTable, type ResolvedDesign } from '@sigmatail/engine';
+import type { Database, TubeLotData } from '@sigmatail/db';
+import { parseDesign, type PriceTable, type ResolvedDesign, type TubeLot } from '@sigmatail/engine';
 import type { Kysely } from 'kysely';
 import { HttpError } from '../http/httpError.js';
+import { findLot } from '../lots/lotsRepo.js';
 import { findDesignRevision, findPrices } from './productionRepo.js';
 
 /**
@@ -31,4 +32,29 @@ export async function loadPrices(db: Kysely<Database>, workspaceId: string): Pro
   const row = await findPrices(db, workspaceId);
   if (!row) throw new HttpError(409, 'this workspace has no price table yet; set one first', 'prices');
   return row.prices as PriceTable;
+}
+
+/**
+ * A stored tube lot of the workspace as the studies draw it: whole envelopes, both sections' spread
+ * multipliers as the upload converted them. 404 naming lotId when the workspace has no such lot,
+ * 400 when it is a resistor lot or measures another tube type than the design's.
+ */
+export async function loadTubeLot(
+  db: Kysely<Database>,
+  workspaceId: string,
+  lotId: string,
+  design: ResolvedDesign,
+): Promise<TubeLot> {
+  const lot = await findLot(db, workspaceId, lotId);
+  if (!lot) throw new HttpError(404, 'lot not found', 'lotId');
+  if (lot.kind !== 'tube')
+    throw new HttpError(400, `lotId: ${lot.name} is a resistor lot, not a tube lot`, 'lotId');
+  if (lot.tubeType !== design.tube.type) {
+    throw new HttpError(
+      400,
+      `lotId: ${lot.name} holds ${lot.tubeType} tubes; the design uses ${design.tube.type}`,
+      'lotId',
+    );
+  }
+  return { quantity: 'multipliers', tubes: (lot.data as TubeLotData).multipliers };
 }

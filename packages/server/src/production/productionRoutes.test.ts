@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { exampleDesign } from '../runs/testing/exampleDesign.js';
+import { uploadLot } from '../testing/uploadLot.js';
 import { startTestWorker } from '../runs/testing/startTestWorker.js';
 import { buildTeam } from '../testing/buildUser.js';
 import { signIn } from '../testing/signIn.js';
@@ -169,6 +170,42 @@ describe('production planning API', () => {
     expect(fromLot.status).toBe(201);
     expect(fromLot.body.study.result.lotSize).toBe(4);
     expect(fromLot.body.study.result.outcomes[0].lotAcceptance).toBe(0.75);
+    // A stored tube lot (uploaded as CSV) by id: every envelope kept whole, both quantities measured.
+    const rows = Array.from({ length: 30 }, (_, i) => {
+      const c1 = 1 + 0.08 * Math.sin(i);
+      const c2 = c1 * (1 + 0.06 * Math.cos(3 * i));
+      return [1.2 * c1, 1.6 * c1, 1.2 * c2, 1.6 * c2].map((v) => v.toFixed(5)).join(',');
+    });
+    const stored = await uploadLot(
+      production,
+      { name: 'Pairing lot', kind: 'tube', quantity: 'ia-gm', tubeType: '12AX7' },
+      'ia1,gm1,ia2,gm2\n' + rows.join('\n'),
+    );
+    expect(stored.status).toBe(201);
+    const byId = await production.post('/api/pairing', {
+      designId,
+      samples: 2000,
+      strategies: [{ kind: 'unmatched' }, { kind: 'matched', quantity: 'gm', within: 3 }],
+      lotId: stored.body.lot.id,
+    });
+    expect(byId.status).toBe(201);
+    expect(byId.body.study.result.lotSize).toBe(30);
+    const kept = byId.body.study.result.outcomes[1].lotAcceptance;
+    expect(kept).toBeGreaterThan(0);
+    expect(kept).toBeLessThan(1);
+    const both = await production.post('/api/pairing', {
+      designId,
+      strategies: [{ kind: 'unmatched' }],
+      lotId: stored.body.lot.id,
+      lot: { quantity: 'ia', sections: [[1, 1]] },
+    });
+    expect(both.body.error.field).toBe('lotId');
+    const guessed = await production.post('/api/pairing', {
+      designId,
+      strategies: [{ kind: 'unmatched' }],
+      lotId: '00000000-0000-4000-8000-000000000000',
+    });
+    expect([guessed.status, guessed.body.error.field]).toEqual([404, 'lotId']);
     const ageing = await production.post('/api/ageing', { designId, samples: 3000 });
     expect(ageing.status).toBe(201);
     expect(ageing.body.study.result.aged.specs.length).toBe(4);

@@ -116,25 +116,31 @@ export const envelopeRuleField = z.discriminatedUnion(
 const measured = z.number({ message: 'must be a positive number' }).positive('must be a positive number');
 
 /** POST /api/pairing: compare pairing strategies for one design. */
-export const pairingBody = z.strictObject({
-  ...designRef,
-  lot: z
-    .strictObject({
-      quantity,
-      sections: z
-        .array(z.tuple([measured, measured], { message: 'must be [section 1, section 2]' }))
-        .min(1, 'needs at least one envelope')
-        .max(20_000, 'at most 20000 envelopes'),
-    })
-    .optional()
-    .describe('measured envelopes to draw tubes from (default: the design’s spread model)'),
-  strategies: z
-    .array(envelopeRuleField)
-    .min(1, 'choose at least one strategy')
-    .max(6, 'at most 6 strategies'),
-  samples,
-  seed,
-});
+export const pairingBody = z
+  .strictObject({
+    ...designRef,
+    lot: z
+      .strictObject({
+        quantity,
+        sections: z
+          .array(z.tuple([measured, measured], { message: 'must be [section 1, section 2]' }))
+          .min(1, 'needs at least one envelope')
+          .max(20_000, 'at most 20000 envelopes'),
+      })
+      .optional()
+      .describe('measured envelopes to draw tubes from (default: the design’s spread model)'),
+    lotId: z
+      .uuid({ message: 'must be a lot id' })
+      .optional()
+      .describe('a stored tube lot of the workspace to draw tubes from (instead of lot)'),
+    strategies: z
+      .array(envelopeRuleField)
+      .min(1, 'choose at least one strategy')
+      .max(6, 'at most 6 strategies'),
+    samples,
+    seed,
+  })
+  .refine((b) => !(b.lot && b.lotId), { message: 'give lot or lotId, not both', path: ['lotId'] });
 
 const drift = z.strictObject({
   shift: z

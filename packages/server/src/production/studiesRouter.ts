@@ -4,7 +4,7 @@ import type { AppDeps } from '../appDeps.js';
 import { recordAudit } from '../audit/recordAudit.js';
 import { requireAuth, requireRole } from '../auth/requireRole.js';
 import { HttpError } from '../http/httpError.js';
-import { loadPrices, loadStudyDesign } from './loadStudyDesign.js';
+import { loadPrices, loadStudyDesign, loadTubeLot } from './loadStudyDesign.js';
 import { runStudy } from './runStudy.js';
 import { insertStudy, latestStudy } from './productionRepo.js';
 import { ageingBody, designQuery, pairingBody } from './productionSchemas.js';
@@ -43,12 +43,13 @@ export function createStudiesRouter({ db }: AppDeps): Router {
     const body = pairingBody.parse(req.body ?? {});
     const prices = await loadPrices(db, req.user!.workspaceId);
     const d = await loadStudyDesign(db, req.user!.workspaceId, body.designId, body.revision);
+    const lot = body.lotId ? await loadTubeLot(db, req.user!.workspaceId, body.lotId, d.resolved) : body.lot;
     const result = await runStudy<PairingComparison>({
       kind: 'pairing',
       design: d.resolved,
       prices,
       rules: body.strategies,
-      options: { samples: body.samples, seed: body.seed, lot: body.lot },
+      options: { samples: body.samples, seed: body.seed, lot },
     });
     res.status(201).json({
       study: await save(req, 'pairing', d.design.id, d.rev, body, { ...result, currency: prices.currency }),

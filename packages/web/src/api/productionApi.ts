@@ -25,6 +25,8 @@ export const productionApi = {
     samples: number;
     seed?: string;
     lot?: { quantity: 'ia' | 'gm' | 'mu'; sections: [number, number][] };
+    /** A stored tube lot of the workspace (instead of `lot`). */
+    lotId?: string;
   }) => request<{ study: PairingStudy }>('POST', '/pairing', body),
   latestPairing: (designId: string) =>
     request<{ study: PairingStudy }>('GET', `/pairing/latest?designId=${enc(designId)}`),

@@ -2,6 +2,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useEffect, useState } from 'react';
 import { productionApi } from '../api/productionApi.js';
 import { designQueries } from '../api/queries/designQueries.js';
+import { lotQueries } from '../api/lotsApi.js';
 import { productionQueries } from '../api/queries/productionQueries.js';
 import type { EnvelopeRule, PairingStudy } from '../api/productionTypes.js';
 import { ChartFrame } from '../charts/ChartFrame.js';
@@ -47,6 +48,11 @@ function PairingForm({ designId, setDesignId }: { designId: string; setDesignId:
   const [bins, setBins] = useState('5');
   const [samples, setSamples] = useState('20000');
   const [lotText, setLotText] = useState('');
+  const [lotId, setLotId] = useState('');
+  const tubeLots = useQuery({
+    ...lotQueries.list(),
+    select: (lots) => lots.filter((l) => l.kind === 'tube'),
+  });
   const [tried, setTried] = useState(false);
   const lot = lotText.trim() ? parseLot(lotText) : null;
   // Start the matched strategy from the design's own pairing rule, when it has one.
@@ -87,7 +93,7 @@ function PairingForm({ designId, setDesignId }: { designId: string; setDesignId:
         designId,
         strategies,
         samples: Number(samples),
-        lot: lot?.ok ? { quantity, sections: lot.sections } : undefined,
+        ...(lotId ? { lotId } : { lot: lot?.ok ? { quantity, sections: lot.sections } : undefined }),
       }),
     onSuccess: () => qc.invalidateQueries({ queryKey: [...productionQueries.all, 'pairing', designId] }),
   });
@@ -178,10 +184,31 @@ function PairingForm({ designId, setDesignId }: { designId: string; setDesignId:
             note={<Note text={err('bins', 'strategies.2.bins')} />}
           />
           <div className="sm:col-span-3">
+            <label htmlFor="pairing-lot-id" className="mb-1 block text-xs font-medium text-dim">
+              Stored tube lot (optional)
+            </label>
+            <select
+              id="pairing-lot-id"
+              className={inputClass}
+              value={lotId}
+              onChange={(e) => setLotId(e.target.value)}
+              aria-invalid={!!fieldError(run.error, 'lotId')}
+            >
+              <option value="">None: the design's tube spread model, or the values pasted below</option>
+              {tubeLots.data?.map((l) => (
+                <option key={l.id} value={l.id}>
+                  {l.name} · {l.tubeType} · {l.count} envelopes
+                </option>
+              ))}
+            </select>
+            <Note text={fieldError(run.error, 'lotId')} />
+          </div>
+          <div className="sm:col-span-3">
             <label htmlFor="pairing-lot" className="mb-1 block text-xs font-medium text-dim">
-              Measured lot (optional): one envelope per line, the measured quantity of section 1 and section 2
+              Or paste a measured lot: one envelope per line, the measured quantity of section 1 and section 2
             </label>
             <textarea
+              disabled={!!lotId}
               id="pairing-lot"
               rows={3}
               className={`${inputClass} num`}
@@ -199,11 +226,13 @@ function PairingForm({ designId, setDesignId }: { designId: string; setDesignId:
           </div>
         </fieldset>
         <p className="mt-2 text-xs text-dim">
-          {lot?.ok
-            ? `Tubes are drawn from the lot's ${lot.sections.length} envelopes (with replacement).`
-            : "No lot given: tubes come from the design's tube spread model."}
+          {lotId
+            ? 'Tubes are drawn whole from the stored lot (both sections, both quantities, with replacement).'
+            : lot?.ok
+              ? `Tubes are drawn from the lot's ${lot.sections.length} envelopes (with replacement).`
+              : "No lot given: tubes come from the design's tube spread model."}
         </p>
-        {run.isError && !namesField(run.error, ['designId', 'samples', 'strategies', 'lot']) && (
+        {run.isError && !namesField(run.error, ['designId', 'samples', 'strategies', 'lot', 'lotId']) && (
           <div className="mt-3">
             <ErrorNote error={run.error} />
           </div>
