@@ -66,7 +66,7 @@ export function AppLayout() {
               title="End every session of your account, on every device"
               onClick={() => signOut(true)}
             >
-              everywhere
+              · all devices
             </button>
           </div>
         </div>
