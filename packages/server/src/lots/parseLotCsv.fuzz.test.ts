@@ -213,9 +213,12 @@ function validLotArb(spec: LotFileSpec): fc.Arbitrary<Lot> {
 
 const plain = { delimiter: ',', eol: '\n', bom: false, quoteAll: false };
 let cases = 0;
+let oks = 0;
 const parse = (text: string | Uint8Array, spec: LotFileSpec): ParsedLot => {
   cases++;
-  return parseLotCsv(Buffer.from(text), spec);
+  const r = parseLotCsv(Buffer.from(text), spec);
+  if (r.ok) oks++;
+  return r;
 };
 
 describe('parseLotCsv fuzz', () => {
@@ -259,7 +262,7 @@ describe('parseLotCsv fuzz', () => {
   });
 
   it('a valid lot reads to the same values with CRLF line ends or a BOM as with LF', () => {
-    let oks = 0;
+    let valid = 0;
     fc.assert(
       fc.property(
         specArb.chain(validLotArb),
@@ -269,7 +272,7 @@ describe('parseLotCsv fuzz', () => {
           const lf = parse(writeCsv(lot, plain).text, lot.spec);
           checkContract(lf, lot.spec, lot.rows.length);
           expect(lf.ok).toBe(true);
-          oks++;
+          valid++;
           expect(parse(writeCsv(lot, { ...plain, eol }).text, lot.spec)).toEqual(lf);
           expect(parse(writeCsv(lot, { ...plain, bom: true }).text, lot.spec)).toEqual(lf);
           expect(parse(writeCsv(lot, { ...plain, eol, bom: true, quoteAll }).text, lot.spec)).toEqual(lf);
@@ -277,7 +280,7 @@ describe('parseLotCsv fuzz', () => {
       ),
       { seed: 20261205, numRuns: 200 },
     );
-    expect(oks).toBe(200);
+    expect(valid).toBe(200);
   });
 
   it('a valid lot with a few cells made extreme or odd: never throws, ok values finite and positive', () => {
@@ -300,8 +303,28 @@ describe('parseLotCsv fuzz', () => {
     );
   });
 
+  it('refuses what the fuzz found stored as null or non-finite statistics, naming row and column', () => {
+    const tube: LotFileSpec = {
+      kind: 'tube',
+      quantity: 'mu-rp',
+      tubeType: '12AX7',
+      testPoint: { va: 250, vg: -2 },
+    };
+    // A denormal rp made the current multiplier 1/(rp·ga) infinite: JSON would store it as null.
+    const rp = parse('mu1,rp1,mu2,rp2\n95,1e-310,95,62k\n', tube);
+    expect(rp.ok).toBe(false);
+    if (!rp.ok)
+      expect(rp.errors).toEqual([{ row: 2, column: 'rp1', message: expect.stringMatching(/range/) }]);
+    // Values near the largest double overflowed the lot's mean and sd.
+    const big = parse('value\n1e308\n1.7e308\n4k7\n', { kind: 'resistor' });
+    expect(big.ok).toBe(false);
+    if (!big.ok) expect(big.errors.map((e) => `${e.row}.${e.column}`)).toEqual(['2.value', '3.value']);
+    // The ends of the range stay accepted.
+    expect(parse('value\n1e-6\n1e12\n1T\n', { kind: 'resistor' })).toMatchObject({ ok: true, count: 3 });
+  });
+
   it('ran at least 2,000 generated files', () => {
     expect(cases).toBeGreaterThanOrEqual(2_000);
-    console.info(`parseLotCsv fuzz: ${cases} files parsed`);
+    console.info(`parseLotCsv fuzz: ${cases} files parsed, ${oks} read ok, ${cases - oks} refused`);
   });
 });
