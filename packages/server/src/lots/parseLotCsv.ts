@@ -119,13 +119,22 @@ export function parseLotCsv(file: Buffer, spec: LotFileSpec): ParsedLot {
         ? { quantity: 'ia-gm', ia: a / 1e3, gm: b / 1e3 }
         : { quantity: 'mu-rp', mu: a, rp: b };
     try {
-      return sectionMultipliers(model, spec.testPoint, m);
+      const x = sectionMultipliers(model, spec.testPoint, m);
+      // Stored as JSON, where an infinite multiplier would silently become null.
+      const usable = (v: number) => Number.isFinite(v) && v > 0;
+      return usable(x.perv) && usable(x.mu) ? x : 'gives no finite model multiplier at this test point';
     } catch (err) {
       if (err instanceof RangeError) return err.message;
       throw err;
     }
   }
 }
+
+// Plausible magnitudes of any measured value (ohms, mA, mA/V, mu): 1 µ to 1 T, the span of the
+// RKM letters and then some (common practice, no source). Inside it a lot's sums, spreads and
+// model multipliers stay finite; outside it a value is a typing slip, not a part.
+const SMALLEST = 1e-6;
+const LARGEST = 1e12;
 
 /** A positive number, or why not. 'ohms' also accepts engineering notation and RKM codes. */
 function readNumber(text: string | undefined, kind: 'ohms' | 'plain'): number | string {
@@ -139,7 +148,10 @@ function readNumber(text: string | undefined, kind: 'ohms' | 'plain'): number | 
     v = Number(text);
     if (!Number.isFinite(v)) return `not a number: "${text.slice(0, 40)}"`;
   }
-  return v > 0 ? v : `must be positive (got ${text.slice(0, 40)})`;
+  if (!(v > 0)) return `must be positive (got ${text.slice(0, 40)})`;
+  if (v < SMALLEST || v > LARGEST)
+    return `out of range: ${text.slice(0, 40)} (must be ${SMALLEST} to ${LARGEST})`;
+  return v;
 }
 
 function refuse(errors: LotRowError[], errorCount: number): ParsedLot {
