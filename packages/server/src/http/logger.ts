@@ -18,7 +18,8 @@ const REQUEST_ID = /^[A-Za-z0-9._:-]{1,100}$/;
 /**
  * Request logging with an id per request: X-Request-Id from the caller when well-formed, else a new
  * UUID; sent back as the X-Request-Id response header and on every log line of the request
- * (req.log). Cookies and the auth header are redacted.
+ * (req.log). Only method, URL, address and status are logged (cookies and the auth header are
+ * redacted besides).
  */
 export function requestLogger(logger: Logger): HttpLogger {
   return pinoHttp({
@@ -30,6 +31,16 @@ export function requestLogger(logger: Logger): HttpLogger {
       return id;
     },
     redact: ['req.headers.cookie', 'req.headers.authorization', 'res.headers["set-cookie"]'],
+    // One short line per request: who asked what and the answer; headers stay out of the log.
+    serializers: {
+      req: (req: { id: unknown; method: string; url: string; remoteAddress?: string }) => ({
+        id: req.id,
+        method: req.method,
+        url: req.url,
+        remoteAddress: req.remoteAddress,
+      }),
+      res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
+    },
     customLogLevel: (_req, res, err) =>
       err || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'warn' : 'info',
   });
