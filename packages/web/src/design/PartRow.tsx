@@ -9,6 +9,7 @@ import {
 } from '@sigmatail/engine';
 import { formatSi } from '../format/formatSi.js';
 import { cellInput, FieldError, optionalNumber } from './formHelpers.js';
+import { ResistorKindSelect, type ResistorName } from './ResistorKindSelect.js';
 
 const SPREADS = [
   ['normal', 'Normal'],
@@ -33,7 +34,10 @@ const toValues = (kind: 'resistance' | 'capacitance') => ({
           }),
 });
 
-/** One row of the parts table: value (RKM or engineering), tolerance letter and percent, spread. */
+/**
+ * One row of the parts table: value (RKM or engineering), tolerance letter and percent, a
+ * resistor's kind, spread.
+ */
 export function PartRow({ name, label }: { name: PartName; label: string }) {
   const {
     register,
@@ -98,6 +102,9 @@ export function PartRow({ name, label }: { name: PartName; label: string }) {
           />
         </div>
         <FieldError error={err?.tolerance} />
+      </td>
+      <td className="pr-2">
+        {valueKind === 'resistance' && <ResistorKindSelect name={name as ResistorName} label={label} />}
       </td>
       <td className="pr-2">
         <select

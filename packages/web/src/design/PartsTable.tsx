@@ -43,6 +43,7 @@ export function PartsTable({ readOnly }: { readOnly: boolean }) {
             <th className="py-1.5 font-medium">Part</th>
             <th className="font-medium">Value (4k7, 2.2k, 1M, 22n…)</th>
             <th className="font-medium">Tolerance</th>
+            <th className="font-medium">Kind</th>
             <th className="font-medium">Spread</th>
             <th className="font-medium">Spread parameters</th>
           </>
