@@ -8,7 +8,7 @@ import {
   type ResistorKind,
 } from '@sigmatail/engine';
 import { KIND_LABELS } from '../production/kindLabels.js';
-import { cellInput } from './formHelpers.js';
+import { cellBox } from './formHelpers.js';
 
 /** Part names that are resistors (the rest, {@link CAPACITOR_PARTS}, are capacitors). */
 export type ResistorName = Exclude<PartName, (typeof CAPACITOR_PARTS)[number]>;
@@ -24,7 +24,7 @@ export function ResistorKindSelect({ name, label }: { name: ResistorName; label:
     <select
       aria-label={`${label} kind`}
       title="Construction: sets the price of tolerance plans and pairing, and the ageing drift"
-      className={`${cellInput} w-auto`}
+      className={`${cellBox} w-44`}
       value={kind}
       onChange={(e) => {
         const next = e.target.value as ResistorKind;
