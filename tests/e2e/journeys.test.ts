@@ -81,12 +81,14 @@ describe('engineer designs, runs and compares', () => {
     await page.getByLabel('RL2 value').fill('91k');
     await expect.poll(() => balance.textContent()).not.toBe(before);
     await page.getByTestId('trim').waitFor();
+    await page.getByLabel('Rk kind').selectOption({ label: 'Carbon composition' });
     await screenshot(page, '07-design-editor-live');
     await page.getByRole('button', { name: 'Create design' }).click();
     await page.waitForURL(/\/designs\/[0-9a-f-]{36}$/);
     const designUrl = page.url();
     await page.getByRole('heading', { name: 'E2E splitter' }).waitFor();
     await page.getByRole('link', { name: 'rev 1' }).waitFor();
+    await expect(page.getByLabel('Rk kind').inputValue()).resolves.toBe('carbon-comp');
     await screenshot(page, '07a-design-saved');
 
     const launch = async (seed: string, plan: string) => {

@@ -8,7 +8,8 @@ import {
   type PartName,
 } from '@sigmatail/engine';
 import { formatSi } from '../format/formatSi.js';
-import { cellInput, FieldError, optionalNumber } from './formHelpers.js';
+import { cellBox, cellInput, FieldError, optionalNumber } from './formHelpers.js';
+import { ResistorKindSelect, type ResistorName } from './ResistorKindSelect.js';
 
 const SPREADS = [
   ['normal', 'Normal'],
@@ -33,7 +34,10 @@ const toValues = (kind: 'resistance' | 'capacitance') => ({
           }),
 });
 
-/** One row of the parts table: value (RKM or engineering), tolerance letter and percent, spread. */
+/**
+ * One row of the parts table: value (RKM or engineering), tolerance letter and percent, a
+ * resistor's kind, spread.
+ */
 export function PartRow({ name, label }: { name: PartName; label: string }) {
   const {
     register,
@@ -51,15 +55,18 @@ export function PartRow({ name, label }: { name: PartName; label: string }) {
       ? { ok: true as const, value: part.value }
       : parseValue(String(part.value ?? ''), valueKind);
   const letter = letterForTolerance(Number(part.tolerance)) ?? '';
+  // "Cout1 (output 1 coupling)": the role goes on a small second line, so the column stays narrow.
+  const [short, role] = label.split(/ \((.*)\)$/);
   return (
     <tr className="border-b border-rule/60 align-top">
       <th scope="row" className="py-1.5 pr-2 text-left text-sm font-medium">
-        {label}
+        {short}
+        {role && <span className="block text-[11px] leading-tight font-normal text-dim">{role}</span>}
       </th>
       <td className="pr-2">
         <input
           aria-label={`${label} value`}
-          className={`${cellInput} num`}
+          className={`${cellInput} num min-w-[4.5rem]`}
           {...register(`parts.${name}.value`)}
         />
         <p className="num mt-0.5 text-[11px] text-dim">
@@ -71,7 +78,7 @@ export function PartRow({ name, label }: { name: PartName; label: string }) {
         <div className="flex gap-1">
           <select
             aria-label={`${label} tolerance class`}
-            className={`${cellInput} w-14`}
+            className={`${cellBox} w-[6.25rem]`}
             value={letter}
             onChange={(e) => {
               const l = e.target.value as keyof typeof TOLERANCE_LETTERS;
@@ -93,17 +100,20 @@ export function PartRow({ name, label }: { name: PartName; label: string }) {
             aria-label={`${label} tolerance percent`}
             type="number"
             step="any"
-            className={`${cellInput} num w-20`}
+            className={`${cellBox} num w-[4.25rem]`}
             {...register(`parts.${name}.tolerance`, optionalNumber)}
           />
         </div>
         <FieldError error={err?.tolerance} />
       </td>
       <td className="pr-2">
+        {valueKind === 'resistance' && <ResistorKindSelect name={name as ResistorName} label={label} />}
+      </td>
+      <td className="pr-2">
         <select
           aria-label={`${label} spread`}
           title="Normal: tolerance = k·σ. Normal, cut: truncated at ±tolerance. Binned: parts within ±inner % were sorted out. Measured lot: measured values, resampled."
-          className={cellInput}
+          className={`${cellBox} w-[7.5rem]`}
           {...register(`parts.${name}.spread.kind`)}
         >
           {SPREADS.map(([k, text]) => (
@@ -114,7 +124,7 @@ export function PartRow({ name, label }: { name: PartName; label: string }) {
         </select>
       </td>
       <td>
-        <div className="flex gap-1">
+        <div className="flex flex-wrap gap-1">
           {(kind === 'normal' || kind === 'truncnormal' || kind === 'lognormal' || kind === 'binned') && (
             <input
               aria-label={`${label} k (tolerance in σ)`}
@@ -122,7 +132,7 @@ export function PartRow({ name, label }: { name: PartName; label: string }) {
               placeholder="k = 3"
               type="number"
               step="any"
-              className={`${cellInput} num w-20`}
+              className={`${cellBox} num w-20`}
               {...register(`parts.${name}.spread.k`, optionalNumber)}
             />
           )}
@@ -133,7 +143,7 @@ export function PartRow({ name, label }: { name: PartName; label: string }) {
               placeholder="inner %"
               type="number"
               step="any"
-              className={`${cellInput} num w-20`}
+              className={`${cellBox} num w-20`}
               {...register(`parts.${name}.spread.inner`, optionalNumber)}
             />
           )}

@@ -41,8 +41,14 @@ export function PartsTable({ readOnly }: { readOnly: boolean }) {
         head={
           <>
             <th className="py-1.5 font-medium">Part</th>
-            <th className="font-medium">Value (4k7, 2.2k, 1M, 22n…)</th>
+            <th className="font-medium">
+              Value
+              <span className="block text-[11px] leading-tight font-normal text-dim">
+                4k7, 2.2k, 1M, 22n…
+              </span>
+            </th>
             <th className="font-medium">Tolerance</th>
+            <th className="font-medium">Kind</th>
             <th className="font-medium">Spread</th>
             <th className="font-medium">Spread parameters</th>
           </>
