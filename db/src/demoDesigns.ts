@@ -39,6 +39,9 @@ export const DEMO_DESIGNS: readonly Record<string, unknown>[] = [
         rload1: '220k',
         rload2: '220k',
       }),
+      // The notes' carbon-film plate loads (prices and ageing read the kind).
+      rl1: { value: '82k', tolerance: 5, spread: { kind: 'normal' }, kind: 'carbon-film' },
+      rl2: { value: '100k', tolerance: 5, spread: { kind: 'normal' }, kind: 'carbon-film' },
       cin: cap('22n', 10, 'normal'),
       cg2: cap('100n', 10, 'normal'),
       cout1: cap('22n', 10, 'normal'),

@@ -1,6 +1,6 @@
 import type { Design } from '@sigmatail/engine';
 
-/** The starting point of a new design: a common 12AX7 cap-coupled splitter with 5 % carbon film. */
+/** The starting point of a new design: a common 12AX7 cap-coupled splitter with 5 % metal-film resistors. */
 export function defaultDesign(): Design {
   const part = (value: string, tolerance = 5): Design['parts']['rl1'] => ({
     value,
