@@ -75,13 +75,12 @@ export function solveSplitLoadBiasInto(
     else lo = x;
     const slope = 1 + T[6] * rsum + T[5] * c.rk;
     const d = f / slope;
-    let next = x - d;
-    const converged = Math.abs(d) <= stepTol * x + 1e-18;
-    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-    if (converged || hi - lo <= 1e-15 * hi) {
-      return finish(c, bp, next, it);
-    }
-    x = next;
+    // Converged: the Newton update is below stepTol of the current (quadratic convergence makes
+    // the updated current good to ~stepTol²), so take it as is.
+    if (Math.abs(d) <= stepTol * x + 1e-18) return finish(c, bp, x - d, it);
+    if (hi - lo <= 1e-15 * hi) return finish(c, bp, 0.5 * (lo + hi), it);
+    const next = x - d;
+    x = next > lo && next < hi ? next : 0.5 * (lo + hi);
   }
   return finish(c, bp, x, 200, 'no-convergence');
 }
