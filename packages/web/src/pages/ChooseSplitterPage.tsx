@@ -54,9 +54,14 @@ export function ChooseSplitterPage() {
         <QueryStatus query={list} />
         <div className="grid gap-3 sm:grid-cols-2">
           {SLOTS.map((s, i) => (
-            <label key={s.key} className="grid gap-1 text-sm text-dim">
-              {s.label}
-              <select className={inputClass} value={ids[i]} onChange={(e) => pick(s.key, e.target.value)}>
+            <div key={s.key} className="grid gap-1 text-sm text-dim">
+              <label htmlFor={`choose-${s.key}`}>{s.label}</label>
+              <select
+                id={`choose-${s.key}`}
+                className={inputClass}
+                value={ids[i]}
+                onChange={(e) => pick(s.key, e.target.value)}
+              >
                 <option value="">Pick a design…</option>
                 {(list.data ?? []).map((d) => (
                   <option key={d.id} value={d.id}>
@@ -64,7 +69,7 @@ export function ChooseSplitterPage() {
                   </option>
                 ))}
               </select>
-            </label>
+            </div>
           ))}
         </div>
       </Panel>
