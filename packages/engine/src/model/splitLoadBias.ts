@@ -43,7 +43,7 @@ function evalAt(c: BiasCircuit, bp: BiasPoint, ia: number): void {
  *
  * @example
  * const bp = createBiasPoint();
- * solveSplitLoadBiasInto(circuit, bp, false); // 'ok'; bp.ia1 ≈ 2.6e-3 A for the 12AU7 example
+ * solveSplitLoadBiasInto(circuit, bp, false); // 'ok'; bp.ia1 ≈ 4.0e-3 A for the 12AU7 example
  */
 export function solveSplitLoadBiasInto(
   c: BiasCircuit,

@@ -48,7 +48,7 @@ function par(a: number, b: number): number {
  * the G_* slots of `g`.
  *
  * @example
- * splitLoadGainsArr(v, g); // g[G_A11] ≈ −0.93, g[G_A12] ≈ 0.93 for RL = Rb + Rt
+ * splitLoadGainsArr(v, g); // g[G_A11] ≈ −0.88, g[G_A12] ≈ 0.88: mu 18, rp 9k, RL = Rb + Rt = 23k
  */
 export function splitLoadGainsArr(v: Float64Array, g: Float64Array): void {
   const mu = v[SS_MU1];
