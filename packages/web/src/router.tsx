@@ -25,6 +25,7 @@ const Revision = page(() => import('./pages/RevisionPage.js'), 'RevisionPage');
 const Run = page(() => import('./pages/RunPage.js'), 'RunPage');
 const Report = page(() => import('./pages/ReportPage.js'), 'ReportPage');
 const ProductionReport = page(() => import('./pages/ProductionReportPage.js'), 'ProductionReportPage');
+const ChooseSplitter = page(() => import('./pages/ChooseSplitterPage.js'), 'ChooseSplitterPage');
 const Compare = page(() => import('./pages/ComparePage.js'), 'ComparePage');
 const Admin = page(() => import('./pages/AdminPage.js'), 'AdminPage');
 const Lots = page(() => import('./pages/LotsPage.js'), 'LotsPage');
@@ -71,6 +72,7 @@ export function createAppRouter(qc: QueryClient) {
           loader: async () => (await warm(qc.ensureQueryData(designQueries.list(''))), null),
         },
         { path: 'designs/new', lazy: DesignEditor },
+        { path: 'designs/choose', lazy: ChooseSplitter },
         {
           path: 'designs/:id',
           lazy: DesignEditor,

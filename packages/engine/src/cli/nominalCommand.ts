@@ -68,7 +68,9 @@ export async function nominalCommand(args: string[]): Promise<number> {
     warnings: r.warnings.map((w) => w.message),
     ratings: r.ratings,
     trim: trim ?? null,
-    largeSignal: r.status === 'ok' ? jsonSafe(largeSignalReport(design)) : null,
+    // Large signal models the long-tailed pair only; none for split-load.
+    largeSignal:
+      r.status === 'ok' && design.topology !== 'split-load' ? jsonSafe(largeSignalReport(design)) : null,
   };
   process.stdout.write(`${JSON.stringify(report, null, 2)}\n`);
   return r.status === 'ok' ? 0 : 1;

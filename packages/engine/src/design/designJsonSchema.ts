@@ -17,7 +17,7 @@ export function designJsonSchema(): Record<string, unknown> {
     $id: 'https://sigmatail.example/design.schema.json',
     title: 'Sigmatail design',
     description:
-      'A long-tailed-pair phase splitter design: topology, supplies, tube, toleranced parts (ohms or RKM text) and specs.',
+      'A phase splitter design (long-tailed pair or split-load): topology, supplies, tube, toleranced parts (ohms or RKM text) and specs.',
     ...rest,
   };
 }

@@ -165,7 +165,13 @@ export const designSchema = z
     version: z.literal(DESIGN_VERSION),
     name: z.string().min(1),
     notes: z.string().optional(),
-    topology: z.enum(['cap-coupled', 'direct-coupled']),
+    /**
+     * 'split-load' (format 2, additive): the cathodyne, one section (section 1) with plate load
+     * rl1, bias resistor rk from cathode to J, cathode load rt from J to the tail supply, grid
+     * leak rg1 to J, outputs at the plate (rload1) and the cathode (rload2); rl2 and rg2 are not
+     * used by it, capacitors are accepted but not analysed, drive is ignored.
+     */
+    topology: z.enum(['cap-coupled', 'direct-coupled', 'split-load']),
     supply: z.object({
       bPlus: finite().positive(),
       tail: finite().max(0, 'tail supply must be 0 (Rt to ground) or negative'),

@@ -4,6 +4,7 @@ import type { BiasStatus } from './biasSolver.js';
 import { createStageContext, nominalStageInputs, solveStageBias } from './stageEvaluator.js';
 import { createStagePoint, type MetricValues } from './stagePoint.js';
 import { ratingWarnings, type StageWarning } from './ratingWarnings.js';
+import { solveSplitLoadBiasInto } from './splitLoadBias.js';
 import { trimRl2, type TrimResult } from './trimRl2.js';
 
 /** The nominal report of a design: bias point, small signal, trim and warnings. */
@@ -34,7 +35,9 @@ const DIAGNOSIS: Record<Exclude<BiasStatus, 'ok'>, string> = {
 
 /**
  * Everything the nominal view shows for a design, in one call: DC operating point, gm/rp/mu of
- * each section, midband gains, impedances, balance, CMRR, rating warnings and the trim. Pure and
+ * each section, midband gains, impedances, balance, CMRR, rating warnings and the trim. For a
+ * 'split-load' design: one section, a11/a12 the plate/cathode gains, no trim, and the metrics of
+ * SPLIT_LOAD_NAN_METRICS NaN (see createSplitLoadKernel). Pure and
  * synchronous, so the web editor can run it on every keystroke.
  *
  * @example
@@ -50,11 +53,14 @@ export function nominalResults(design: ResolvedDesign): NominalReport {
     plateVoltage: tube.maxPlateVoltage.value,
     heaterCathode: tube.maxHeaterCathode.value,
   };
-  const status = solveStageBias(ctx, nominalStageInputs(design), false);
+  const splitLoad = design.topology === 'split-load';
+  const status = splitLoad
+    ? solveSplitLoadBiasInto({ ...ctx.bias, ...nominalStageInputs(design) }, ctx.bp, false)
+    : solveStageBias(ctx, nominalStageInputs(design), false);
   const metrics = createStagePoint(design)();
   if (status !== 'ok') {
     const why = DIAGNOSIS[status];
-    const vgk = Math.max(ctx.bp.vgk1, ctx.bp.vgk2);
+    const vgk = splitLoad ? ctx.bp.vgk1 : Math.max(ctx.bp.vgk1, ctx.bp.vgk2);
     const detail = status === 'grid-current' ? ` (Vgk = ${Number(vgk.toPrecision(3))} V)` : '';
     return { status, diagnosis: why + detail, metrics, warnings: [], ratings };
   }
@@ -63,6 +69,7 @@ export function nominalResults(design: ResolvedDesign): NominalReport {
     metrics,
     warnings: ratingWarnings(tube, metrics, design.supply.bPlus),
     ratings,
-    trim: trimRl2(design),
+    // The RL2 trim balances a long-tailed pair; a split-load design has no RL2.
+    trim: splitLoad ? undefined : trimRl2(design),
   };
 }

@@ -57,6 +57,7 @@ import {
   SS_RSOURCE,
   SS_RT,
 } from './reducedNodalGains.js';
+import { createSplitLoadKernel } from './splitLoadKernel.js';
 import {
   createStageContext,
   DC_MU1,
@@ -147,6 +148,8 @@ const SAMPLE_STEP_TOL = 1e-6;
  * frequency metrics at each spec frequency, and, when the design uses the frequency analysis
  * (see usesFrequencyAnalysis; `corners` / `band` override), the −3 dB points (secant from the
  * nominal corners) and the balance at each BAND_FREQUENCIES entry.
+ * A 'split-load' design gets its sibling kernel (createSplitLoadKernel): same inputs and metric
+ * ids, no frequency analysis (spec frequency columns are NaN, no corners or band).
  *
  * @example
  * const k = createStageKernel(design);
@@ -159,6 +162,10 @@ export function createStageKernel(
   options?: { dcPerSample?: boolean; corners?: boolean; band?: boolean },
 ): StageKernel {
   const dcPerSample = options?.dcPerSample ?? true;
+  if (design.topology === 'split-load') {
+    const extra = acColumns(design, false, METRIC_IDS.length).ids;
+    return createSplitLoadKernel(design, INPUTS, [...METRIC_IDS, ...extra], dcPerSample);
+  }
   const analysis = usesFrequencyAnalysis(design);
   const corners = options?.corners ?? analysis;
   const cornerIds: readonly string[] = corners ? CORNER_METRIC_IDS : [];

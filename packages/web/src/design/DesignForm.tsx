@@ -102,7 +102,7 @@ export function DesignForm({
         </form>
         <div className="space-y-4 xl:sticky xl:top-4 xl:self-start">
           <LiveResults state={live} />
-          {live.ok && (
+          {live.ok && live.design.topology !== 'split-load' && (
             <Panel title="Schematic">
               <StageSchematic design={live.design} report={live.report} />
             </Panel>

@@ -33,6 +33,34 @@ describe('live nominal results', () => {
     expect(evaluateNominal(v1).ok).toBe(true);
   });
 
+  it('shows a split-load design as one section with plate and cathode outputs, no trim or plots', () => {
+    const d = { ...defaultDesign(), topology: 'split-load' as const };
+    d.supply = { bPlus: 300, tail: 0 };
+    Object.assign(d.parts, {
+      rl1: { value: '22k', tolerance: 5, spread: { kind: 'normal' } },
+      rk: { value: '1k', tolerance: 5, spread: { kind: 'normal' } },
+      rt: { value: '22k', tolerance: 5, spread: { kind: 'normal' } },
+    });
+    render(<LiveResults state={evaluateNominal(d)} />);
+    const panel = screen.getByRole('region', { name: 'Live nominal results' });
+    expect(within(panel).getByText('Gain to plate')).toBeInTheDocument();
+    expect(within(panel).getByText('Gain to cathode')).toBeInTheDocument();
+    expect(screen.getByTestId('balance').textContent).toMatch(/dB$/);
+    expect(within(panel).queryByText('Nearest E24')).toBeNull();
+    expect(within(panel).queryByText('CMRR')).toBeNull();
+    expect(screen.queryByRole('img', { name: 'Balance against frequency' })).toBeNull();
+  });
+
+  it('the topology choice offers the split-load splitter and then shows only its parts', async () => {
+    render(<DesignForm initial={defaultDesign()} readOnly={false} onSave={async () => {}} />);
+    expect(screen.getAllByText('RL2').length).toBeGreaterThan(0);
+    await userEvent.selectOptions(screen.getByLabelText('Topology'), 'Split-load (cathodyne)');
+    expect(await screen.findByText('RL (plate load)')).toBeInTheDocument();
+    expect(screen.queryAllByText('RL2')).toEqual([]);
+    expect(screen.queryAllByText('RG2')).toEqual([]);
+    expect(await screen.findByText('Gain to cathode')).toBeInTheDocument();
+  });
+
   it('names the fields to fix when the design does not parse', () => {
     const bad = {
       ...defaultDesign(),

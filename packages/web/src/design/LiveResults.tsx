@@ -3,6 +3,7 @@ import { formatSi, formatSig } from '../format/formatSi.js';
 import type { NominalState } from './useNominal.js';
 import { FrequencyPanel } from './FrequencyPanel.js';
 import { LargeSignalPanel } from './LargeSignalPanel.js';
+import { SplitLoadResults } from './SplitLoadResults.js';
 
 function Row({ label, children, warn = false }: { label: ReactNode; children: ReactNode; warn?: boolean }) {
   return (
@@ -56,7 +57,10 @@ export function LiveResults({ state }: { state: NominalState }) {
           ))}
         </ul>
       )}
-      {report.status === 'ok' && (
+      {report.status === 'ok' && state.design.topology === 'split-load' && (
+        <SplitLoadResults report={report} />
+      )}
+      {report.status === 'ok' && state.design.topology !== 'split-load' && (
         <>
           <div>
             <h3 className="mb-1 text-xs font-semibold text-ink">Gain and balance</h3>

@@ -11,6 +11,19 @@ const REQUIRED: [PartName, string][] = [
   ['rg1', 'RG1'],
   ['rg2', 'RG2'],
 ];
+// The split-load splitter is one section: RL1 is its plate load, Rk the bias resistor from the
+// cathode to the grid-return point, Rt the cathode load to ground; RL2 and RG2 are not used.
+const SPLIT_LOAD_REQUIRED: [PartName, string][] = [
+  ['rl1', 'RL (plate load)'],
+  ['rk', 'Rb (bias, cathode to grid return)'],
+  ['rt', 'RK (cathode load to ground)'],
+  ['rg1', 'RG (grid leak to grid return)'],
+];
+const SPLIT_LOAD_OPTIONAL: [PartName, string, string][] = [
+  ['rload1', 'Rload1 (on the plate)', '220k'],
+  ['rload2', 'Rload2 (on the cathode)', '220k'],
+  ['rsource', 'Rsource', '10k'],
+];
 const OPTIONAL: [PartName, string, string][] = [
   ['rload1', 'Rload1', '220k'],
   ['rload2', 'Rload2', '220k'],
@@ -34,6 +47,11 @@ const CAPACITORS: [PartName, string, string, number][] = [
 export function PartsTable({ readOnly }: { readOnly: boolean }) {
   const { watch, setValue } = useFormContext<Design>();
   const parts = watch('parts');
+  const splitLoad = watch('topology') === 'split-load';
+  const required = splitLoad ? SPLIT_LOAD_REQUIRED : REQUIRED;
+  const optional = splitLoad ? SPLIT_LOAD_OPTIONAL : OPTIONAL;
+  // The split-load frequency response is not modelled, so its capacitors are not offered.
+  const capacitors = splitLoad ? [] : CAPACITORS;
   return (
     <div className="overflow-x-auto">
       <Table
@@ -54,14 +72,14 @@ export function PartsTable({ readOnly }: { readOnly: boolean }) {
           </>
         }
       >
-        {REQUIRED.map(([n, l]) => (
+        {required.map(([n, l]) => (
           <PartRow key={n} name={n} label={l} />
         ))}
-        {OPTIONAL.map(([n, l]) => parts?.[n] && <PartRow key={n} name={n} label={l} />)}
-        {CAPACITORS.map(([n, l]) => parts?.[n] && <PartRow key={n} name={n} label={l} />)}
+        {optional.map(([n, l]) => parts?.[n] && <PartRow key={n} name={n} label={l} />)}
+        {capacitors.map(([n, l]) => parts?.[n] && <PartRow key={n} name={n} label={l} />)}
       </Table>
       <div className="mt-2 flex flex-wrap gap-3 text-sm">
-        {OPTIONAL.map(([n, l, dflt]) => (
+        {optional.map(([n, l, dflt]) => (
           <label key={n} className="flex items-center gap-1.5 text-dim">
             <input
               type="checkbox"
@@ -78,12 +96,12 @@ export function PartsTable({ readOnly }: { readOnly: boolean }) {
                 )
               }
             />
-            {l} fitted
+            {l.split(' (')[0]} fitted
           </label>
         ))}
       </div>
       <div className="mt-2 flex flex-wrap gap-3 text-sm">
-        {CAPACITORS.map(([n, l, dflt, tol]) => (
+        {capacitors.map(([n, l, dflt, tol]) => (
           <label key={n} className="flex items-center gap-1.5 text-dim">
             <input
               type="checkbox"
@@ -101,7 +119,9 @@ export function PartsTable({ readOnly }: { readOnly: boolean }) {
           </label>
         ))}
         <span className="text-xs text-dim">
-          Capacitors left out are ideal (coupling, bypass) or absent (stray).
+          {splitLoad
+            ? 'Split-load: the frequency response is not modelled, so no capacitors.'
+            : 'Capacitors left out are ideal (coupling, bypass) or absent (stray).'}
         </span>
       </div>
     </div>

@@ -31,6 +31,7 @@ export function StageFields() {
         <select id="d-topology" className={inputClass} {...register('topology')}>
           <option value="cap-coupled">Capacitor-coupled (grids leak to J)</option>
           <option value="direct-coupled">Direct-coupled (grid 1 at a DC level)</option>
+          <option value="split-load">Split-load (cathodyne)</option>
         </select>
       </Field>
       <div className="grid grid-cols-3 gap-2">

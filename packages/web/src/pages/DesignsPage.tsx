@@ -47,6 +47,9 @@ export function DesignsPage() {
             onChange={(e) => setQ(e.target.value)}
           />
         </div>
+        <Link to="/designs/choose" className="text-sm text-petrol underline">
+          Choose the splitter
+        </Link>
         <label className="flex items-center gap-2 text-sm text-dim">
           <input type="checkbox" checked={archived} onChange={(e) => setArchived(e.target.checked)} />
           Show archived

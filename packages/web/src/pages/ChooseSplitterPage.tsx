@@ -1,0 +1,117 @@
+import { useQuery } from '@tanstack/react-query';
+import type { ReactNode } from 'react';
+import { Link, useSearchParams } from 'react-router';
+import { designQueries } from '../api/queries/designQueries.js';
+import { runQueries } from '../api/queries/runQueries.js';
+import { latestDoneRun, splitterFigures } from '../choose/splitterFigures.js';
+import { QueryStatus } from '../components/QueryState.js';
+import { inputClass, PageTitle, Panel } from '../components/ui.js';
+import { formatSi, formatSig } from '../format/formatSi.js';
+
+const SLOTS = [
+  { key: 'ltp', label: 'Long-tailed pair' },
+  { key: 'split', label: 'Split-load' },
+] as const;
+
+/** One column of the comparison: a picked design's nominal figures and its latest finished run. */
+function useColumn(id: string) {
+  const design = useQuery({ ...designQueries.detail(id), enabled: id !== '' });
+  const runs = useQuery({ ...runQueries.list({ designId: id, status: 'done' }), enabled: id !== '' });
+  const figures = design.data ? splitterFigures(design.data.latestRevision.document) : null;
+  return { design, figures, run: runs.data ? latestDoneRun(runs.data) : null, runsLoaded: runs.isSuccess };
+}
+
+/** Two designs side by side (a long-tailed pair and a split-load), picked in the URL (?ltp=…&split=…). */
+export function ChooseSplitterPage() {
+  const [params, setParams] = useSearchParams();
+  const ids = SLOTS.map((s) => params.get(s.key) ?? '');
+  const list = useQuery(designQueries.list(''));
+  const cols = [useColumn(ids[0]), useColumn(ids[1])];
+  const pick = (key: string, id: string) => {
+    const next = new URLSearchParams(params);
+    if (id) next.set(key, id);
+    else next.delete(key);
+    setParams(next, { replace: true });
+  };
+  const row = (label: string, cell: (c: (typeof cols)[number]) => ReactNode) => (
+    <tr className="border-t border-rule">
+      <th scope="row" className="py-1.5 pr-4 text-left font-normal text-dim">
+        {label}
+      </th>
+      {cols.map((c, i) => (
+        <td key={i} className="num pr-4">
+          {c.figures ? cell(c) : '—'}
+        </td>
+      ))}
+    </tr>
+  );
+  return (
+    <div className="space-y-4">
+      <PageTitle sub="Pick a long-tailed pair and a split-load design to set their nominal figures and yields side by side. High voltage: both stages run from a lethal B+.">
+        Choose the splitter
+      </PageTitle>
+      <Panel title="Designs">
+        <QueryStatus query={list} />
+        <div className="grid gap-3 sm:grid-cols-2">
+          {SLOTS.map((s, i) => (
+            <div key={s.key} className="grid gap-1 text-sm text-dim">
+              <label htmlFor={`choose-${s.key}`}>{s.label}</label>
+              <select
+                id={`choose-${s.key}`}
+                className={inputClass}
+                value={ids[i]}
+                onChange={(e) => pick(s.key, e.target.value)}
+              >
+                <option value="">Pick a design…</option>
+                {(list.data ?? []).map((d) => (
+                  <option key={d.id} value={d.id}>
+                    {d.name}
+                  </option>
+                ))}
+              </select>
+            </div>
+          ))}
+        </div>
+      </Panel>
+      <Panel title="Side by side">
+        <table className="w-full text-sm" aria-label="Splitter comparison">
+          <thead>
+            <tr className="text-left text-xs text-dim">
+              <th className="font-normal" />
+              {cols.map((c, i) => (
+                <th key={i} className="font-medium text-ink">
+                  {c.design.data ? (
+                    <Link to={`/designs/${ids[i]}`}>{c.design.data.name}</Link>
+                  ) : (
+                    SLOTS[i].label
+                  )}
+                </th>
+              ))}
+            </tr>
+          </thead>
+          <tbody>
+            {row('Topology', (c) => c.figures!.topology)}
+            {row('Operating point', (c) => c.figures!.problem ?? 'ok')}
+            {row('Gain to output 1 (plate)', (c) => formatSig(c.figures!.gain1))}
+            {row('Gain to output 2 (plate 2 / cathode)', (c) => formatSig(c.figures!.gain2))}
+            {row('Balance |A2|/|A1|', (c) => formatSi(c.figures!.balanceDb, 'dB'))}
+            {row('Zout 1', (c) => formatSi(c.figures!.zout1, 'Ω'))}
+            {row('Zout 2', (c) => formatSi(c.figures!.zout2, 'Ω'))}
+            {row('Joint yield (latest finished run)', (c) =>
+              c.run ? (
+                <Link to={`/runs/${c.run.id}`}>
+                  {formatSig(100 * c.run.summary!.jointYield!, 4)} % (rev {c.run.revision},{' '}
+                  {c.run.samples.toLocaleString('en')} samples)
+                </Link>
+              ) : c.runsLoaded ? (
+                'no finished run'
+              ) : (
+                '…'
+              ),
+            )}
+          </tbody>
+        </table>
+      </Panel>
+    </div>
+  );
+}
