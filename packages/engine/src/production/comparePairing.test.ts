@@ -8,8 +8,10 @@ import { tubeColumns } from './commonDraws.js';
 import { comparePairing, modelAcceptance } from './comparePairing.js';
 import { partPrice, type PriceTable } from './priceTable.js';
 import { createSampleJudge } from './sampleJudge.js';
+import { searchPlan } from './searchPlan.js';
 
 const GUITAR = new URL('../../examples/guitar-12ax7-cap-coupled.json', import.meta.url);
+const SPLIT_LOAD = new URL('../../examples/guitar-12au7-split-load.json', import.meta.url);
 
 const prices: PriceTable = {
   currency: 'EUR',
@@ -96,5 +98,19 @@ describe('comparePairing on a design with capacitors and frequency specs', () =>
       0,
     );
     expect(r.partsCost).toBeCloseTo(expected, 12);
+  });
+});
+
+describe('production studies on a split-load design', () => {
+  it('refuse pairing (one section) and plan with unmatched tubes only', () => {
+    const parsed = parseDesign(JSON.parse(readFileSync(SPLIT_LOAD, 'utf8')));
+    if (!parsed.ok) throw new Error('split-load example does not parse');
+    const d = parsed.design;
+    expect(() => comparePairing(d, prices, [{ kind: 'unmatched' }])).toThrow(
+      /^designId: .*one triode section/,
+    );
+    expect(() => searchPlan(d, { prices, targetPpm: 1000, tubes: ['matched'] })).toThrow(/^tubes: /);
+    const plan = searchPlan(d, { prices, targetPpm: 5000, samples: 2000 });
+    expect(plan.frontier.every((p) => p.assignment.tube === 'unmatched')).toBe(true);
   });
 });

@@ -58,6 +58,8 @@ export function comparePairing(
   rules: readonly EnvelopeRule[],
   options: { samples?: number; seed?: string; lot?: TubeLot } = {},
 ): PairingComparison {
+  if (design.topology === 'split-load')
+    throw new RangeError('designId: a split-load design uses one triode section; pairing does not apply');
   const lot = options.lot ? prepareLot(options.lot) : null;
   const n = options.samples ?? 20_000;
   const seed = options.seed ?? 'pairing';

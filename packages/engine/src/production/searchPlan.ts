@@ -89,7 +89,9 @@ export function searchPlan(design: ResolvedDesign, options: PlanSearchOptions): 
   const confidence = options.confidence ?? 0.95;
   const seed = options.seed ?? 'plan';
   const matchRule = options.matchRule ?? design.tube.spread.pairing ?? DEFAULT_MATCH_RULE;
-  const tubes = options.tubes ?? (['unmatched', 'matched'] as const);
+  const tubes =
+    options.tubes ??
+    (design.topology === 'split-load' ? (['unmatched'] as const) : (['unmatched', 'matched'] as const));
   const plannable = (k: PartName) => {
     const kind = design.parts[k]?.spread.kind;
     return kind !== undefined && kind !== 'fixed' && kind !== 'empirical';
@@ -101,6 +103,8 @@ export function searchPlan(design: ResolvedDesign, options: PlanSearchOptions): 
     throw new RangeError('samples must be an integer 1..10000000');
   if (!(confidence > 0 && confidence < 1)) throw new RangeError('confidence must be > 0 and < 1');
   if (tubes.length === 0) throw new RangeError('tubes must name at least one option');
+  if (design.topology === 'split-load' && tubes.some((t) => t !== 'unmatched'))
+    throw new RangeError('tubes: a split-load design uses one triode section; there is no pair to match');
   const parts = names.map((name) => {
     const part = design.parts[name];
     if (!part) throw new RangeError(`parts: the design has no part '${name}'`);
