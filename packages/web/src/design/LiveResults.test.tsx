@@ -55,7 +55,7 @@ describe('live nominal results', () => {
     render(<DesignForm initial={defaultDesign()} readOnly={false} onSave={async () => {}} />);
     expect(screen.getAllByText('RL2').length).toBeGreaterThan(0);
     await userEvent.selectOptions(screen.getByLabelText('Topology'), 'Split-load (cathodyne)');
-    expect(await screen.findByText('RL (plate load)')).toBeInTheDocument();
+    expect(await screen.findByLabelText('RL (plate load) value')).toBeInTheDocument();
     expect(screen.queryAllByText('RL2')).toEqual([]);
     expect(screen.queryAllByText('RG2')).toEqual([]);
     expect(await screen.findByText('Gain to cathode')).toBeInTheDocument();
