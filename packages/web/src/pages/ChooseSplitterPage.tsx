@@ -18,7 +18,10 @@ function useColumn(id: string) {
   const design = useQuery({ ...designQueries.detail(id), enabled: id !== '' });
   const runs = useQuery({ ...runQueries.list({ designId: id, status: 'done' }), enabled: id !== '' });
   const figures = design.data ? splitterFigures(design.data.latestRevision.document) : null;
-  return { design, figures, run: runs.data ? latestDoneRun(runs.data) : null, runsLoaded: runs.isSuccess };
+  const run = runs.data ? latestDoneRun(runs.data) : null;
+  const results = useQuery({ ...runQueries.results(run?.id ?? ''), enabled: run !== null });
+  const balance = results.data?.results.metrics.balanceDb ?? null;
+  return { design, figures, run, balance, runsLoaded: runs.isSuccess };
 }
 
 /** Two designs side by side (a long-tailed pair and a split-load), picked in the URL (?ltp=…&split=…). */
@@ -97,6 +100,16 @@ export function ChooseSplitterPage() {
             {row('Balance |A2|/|A1|', (c) => formatSi(c.figures!.balanceDb, 'dB'))}
             {row('Zout 1', (c) => formatSi(c.figures!.zout1, 'Ω'))}
             {row('Zout 2', (c) => formatSi(c.figures!.zout2, 'Ω'))}
+            {row('Balance spread (latest finished run): sd, 2.5–97.5 %', (c) =>
+              c.balance && c.balance.sd !== null ? (
+                <>
+                  {formatSi(c.balance.sd, 'dB')}, {formatSi(c.balance.quantiles['p2.5'] ?? NaN, 'dB')} …{' '}
+                  {formatSi(c.balance.quantiles['p97.5'] ?? NaN, 'dB')}
+                </>
+              ) : (
+                '—'
+              ),
+            )}
             {row('Joint yield (latest finished run)', (c) =>
               c.run ? (
                 <Link to={`/runs/${c.run.id}`}>
