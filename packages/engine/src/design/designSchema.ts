@@ -237,6 +237,19 @@ export type PartName = keyof Design['parts'];
 /** Capacitor part names (farads); the rest are resistors (ohms). */
 export const CAPACITOR_PARTS = ['cin', 'cg2', 'cout1', 'cout2', 'cstray1', 'cstray2'] as const;
 
+/** Resistor part names (ohms), in document order. */
+export const RESISTOR_PARTS = [
+  'rl1',
+  'rl2',
+  'rk',
+  'rt',
+  'rg1',
+  'rg2',
+  'rload1',
+  'rload2',
+  'rsource',
+] as const satisfies readonly Exclude<PartName, (typeof CAPACITOR_PARTS)[number]>[];
+
 /**
  * A part with its value resolved to ohms (resistors) or farads (capacitors); `kind` is a
  * resistor's construction (capacitors have none).

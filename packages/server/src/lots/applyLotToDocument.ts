@@ -1,21 +1,10 @@
 import type { ResistorLotData, TubeLotData } from '@sigmatail/db';
-import { formatEngineering, parseValue } from '@sigmatail/engine';
+import { formatEngineering, parseValue, RESISTOR_PARTS } from '@sigmatail/engine';
 import { HttpError } from '../http/httpError.js';
 import type { LotRow } from './lotsRepo.js';
 
 /** Part names a resistor lot can be applied to, or 'tube' for a tube lot. */
-export const LOT_TARGETS = [
-  'rl1',
-  'rl2',
-  'rk',
-  'rt',
-  'rg1',
-  'rg2',
-  'rload1',
-  'rload2',
-  'rsource',
-  'tube',
-] as const;
+export const LOT_TARGETS = [...RESISTOR_PARTS, 'tube'] as const;
 export type LotTarget = (typeof LOT_TARGETS)[number];
 
 type Doc = Record<string, unknown> & {

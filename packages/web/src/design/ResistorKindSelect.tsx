@@ -2,16 +2,15 @@ import { useFormContext } from 'react-hook-form';
 import {
   DEFAULT_RESISTOR_KIND,
   RESISTOR_KINDS,
-  type CAPACITOR_PARTS,
   type Design,
-  type PartName,
   type ResistorKind,
+  type RESISTOR_PARTS,
 } from '@sigmatail/engine';
 import { KIND_LABELS } from '../production/kindLabels.js';
 import { cellBox } from './formHelpers.js';
 
-/** Part names that are resistors (the rest, {@link CAPACITOR_PARTS}, are capacitors). */
-export type ResistorName = Exclude<PartName, (typeof CAPACITOR_PARTS)[number]>;
+/** Part names that are resistors. */
+export type ResistorName = (typeof RESISTOR_PARTS)[number];
 
 /**
  * The construction of one resistor part (prices, pairing cost, ageing drift). The default kind is
