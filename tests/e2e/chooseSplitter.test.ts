@@ -1,16 +1,10 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { startE2e, type E2eHarness } from '../src/e2eHarness.js';
+import { useE2e } from '../src/useE2e.js';
 import { screenshot } from '../src/screenshot.js';
 import { signIn } from '../src/signIn.js';
 
-let h: E2eHarness;
-beforeAll(async () => {
-  h = await startE2e();
-}, 60_000);
-afterAll(async () => {
-  await h?.stop();
-});
+const h = useE2e();
 
 /** Opens a design from the Designs page and runs it with a few thousand samples. */
 async function runDesign(page: Page, name: RegExp, seed: string): Promise<void> {

@@ -1,18 +1,12 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startE2e, type E2eHarness } from '../src/e2eHarness.js';
+import { describe, expect, it } from 'vitest';
+import { useE2e } from '../src/useE2e.js';
 import { screenshot } from '../src/screenshot.js';
 import { signIn } from '../src/signIn.js';
 
 // The built web app under the server's real Content-Security-Policy: chromium reports every
 // blocked script, style, font, image or fetch as a console error and a securitypolicyviolation
 // event; the journey below must produce none.
-let h: E2eHarness;
-beforeAll(async () => {
-  h = await startE2e();
-}, 60_000);
-afterAll(async () => {
-  await h?.stop();
-});
+const h = useE2e();
 
 describe('Content-Security-Policy in the browser', () => {
   it('blocks nothing the app needs: pages, d3 charts, live results, fonts, chart export', async () => {

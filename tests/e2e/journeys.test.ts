@@ -1,17 +1,11 @@
 import { statSync } from 'node:fs';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startE2e, type E2eHarness } from '../src/e2eHarness.js';
+import { describe, expect, it } from 'vitest';
+import { useE2e } from '../src/useE2e.js';
 import { screenshot } from '../src/screenshot.js';
 import { signIn } from '../src/signIn.js';
 
 // One harness for all journeys: starting the stack and chromium once keeps the suite short.
-let h: E2eHarness;
-beforeAll(async () => {
-  h = await startE2e();
-}, 60_000);
-afterAll(async () => {
-  await h?.stop();
-});
+const h = useE2e();
 
 describe('admin invites a user', () => {
   it('signs in, sends an invite, reads it in the dev inbox and accepts it', async () => {

@@ -1,15 +1,9 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startE2e, type E2eHarness } from '../src/e2eHarness.js';
+import { describe, expect, it } from 'vitest';
+import { useE2e } from '../src/useE2e.js';
 import { screenshot } from '../src/screenshot.js';
 import { signIn } from '../src/signIn.js';
 
-let h: E2eHarness;
-beforeAll(async () => {
-  h = await startE2e();
-}, 60_000);
-afterAll(async () => {
-  await h?.stop();
-});
+const h = useE2e();
 
 describe('production lead reports on a design', () => {
   it('runs a demo design, saves test limits, opens its production report, mails it to a colleague, and the mail reaches the dev inbox', async () => {
