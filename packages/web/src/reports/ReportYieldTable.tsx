@@ -1,7 +1,8 @@
 import type { ProductionReport } from '../api/types.js';
 import { Table } from '../components/Table.js';
-import { formatPpm, formatSi, formatSig, formatYield } from '../format/formatSi.js';
+import { formatPpm, formatSig, formatYield } from '../format/formatSi.js';
 import { metricInfo } from '../results/metricInfo.js';
+import { specLimitsText } from '../results/specLimitsText.js';
 
 type Run = NonNullable<ProductionReport['run']>;
 
@@ -34,12 +35,7 @@ export function ReportYieldTable({ run }: { run: Run }) {
       </tr>
       {run.specs.map((s, i) => {
         const info = metricInfo(s.metric);
-        const limits = [
-          s.min !== null ? `≥ ${formatSi(s.min, info.unit)}` : '',
-          s.max !== null ? `≤ ${formatSi(s.max, info.unit)}` : '',
-        ]
-          .filter(Boolean)
-          .join(', ');
+        const limits = specLimitsText(s, info.unit);
         return (
           <tr key={i} className="border-b border-rule/40">
             <td className="py-1.5 pr-3">{s.label ?? info.label}</td>

@@ -1,6 +1,7 @@
 import { cpkInterval, specColumnId, type RunResults } from '@sigmatail/engine';
-import { formatPpm, formatSi, formatSig, formatYield } from '../format/formatSi.js';
+import { formatPpm, formatSig, formatYield } from '../format/formatSi.js';
 import { metricInfo } from './metricInfo.js';
+import { specLimitsText } from './specLimitsText.js';
 
 type YieldLike = RunResults['joint'];
 
@@ -58,12 +59,7 @@ export function SummaryCards({ results, target }: { results: RunResults; target?
       {results.specs.map((s, i) => {
         const info = metricInfo(specColumnId(s));
         const ci = cpkInterval(s.cpk, s.samples);
-        const limits = [
-          s.min !== null ? `≥ ${formatSi(s.min, info.unit)}` : '',
-          s.max !== null ? `≤ ${formatSi(s.max, info.unit)}` : '',
-        ]
-          .filter(Boolean)
-          .join(', ');
+        const limits = specLimitsText(s, info.unit);
         return (
           <Card key={i} title={`${s.label ?? info.label}: ${info.label} ${limits}`} tone={tone(s.yield)}>
             <YieldBlock y={s} />
