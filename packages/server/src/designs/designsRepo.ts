@@ -20,6 +20,40 @@ export async function listDesigns(
       'd.archived_at as archivedAt',
       'u.id as createdById',
       'u.name as createdByName',
+      // What a card in the list says at a glance: the latest revision's topology, tube and B+ …
+      (eb) =>
+        eb
+          .selectFrom('design_revisions as lr')
+          .select(
+            sql<{ topology: string | null; tube: string | null; bPlus: number | null }>`json_build_object(
+              'topology', lr.document->>'topology',
+              'tube', lr.document#>>'{tube,type}',
+              'bPlus', case when jsonb_typeof(lr.document#>'{supply,bPlus}') = 'number'
+                then (lr.document#>>'{supply,bPlus}')::float8 end)`.as('glance'),
+          )
+          .whereRef('lr.design_id', '=', 'd.id')
+          .whereRef('lr.rev', '=', 'd.latest_rev')
+          .as('glance'),
+      // … and the joint yield of its latest finished run (any revision).
+      (eb) =>
+        eb
+          .selectFrom('runs as r')
+          .innerJoin('run_results as rr', 'rr.run_id', 'r.id')
+          .select(
+            sql<{
+              id: string;
+              revision: number;
+              samples: number;
+              jointYield: number;
+              finishedAt: string;
+            }>`json_build_object('id', r.id, 'revision', r.revision, 'samples', r.samples,
+              'jointYield', rr.joint_yield, 'finishedAt', r.finished_at)`.as('latest'),
+          )
+          .whereRef('r.design_id', '=', 'd.id')
+          .where('r.status', '=', 'done')
+          .orderBy('r.finished_at', 'desc')
+          .limit(1)
+          .as('latestRun'),
     ])
     .where('d.workspace_id', '=', workspaceId)
     .orderBy('d.updated_at', 'desc')
@@ -49,8 +83,12 @@ export async function listDesigns(
     );
   }
   const rows = await query.execute();
-  return rows.map(({ createdById, createdByName, ...d }) => ({
+  return rows.map(({ createdById, createdByName, glance, latestRun, ...d }) => ({
     ...d,
+    topology: glance?.topology ?? null,
+    tube: glance?.tube ?? null,
+    bPlus: glance?.bPlus ?? null,
+    latestRun: latestRun ? { ...latestRun, finishedAt: new Date(latestRun.finishedAt).toISOString() } : null,
     createdBy: { id: createdById, name: createdByName },
   }));
 }

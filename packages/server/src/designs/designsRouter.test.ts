@@ -108,6 +108,68 @@ describe('designs', () => {
     expect(bad.body.error.field).toBe('archived');
   });
 
+  it('lists each design with its topology, tube, B+ and its latest finished run at a glance', async () => {
+    const tag = `glance-${Date.now()}`;
+    const { body } = await engineer.post('/api/designs', { document: doc(`${tag} stage`) });
+    const id = body.design.id as string;
+    const find = async () =>
+      ((await viewer.get(`/api/designs?q=${tag}`)).body.designs as Record<string, unknown>[]).find(
+        (d) => d.id === id,
+      )!;
+    const demo = DEMO_DESIGNS[0] as { topology: string; tube: { type: string }; supply: { bPlus: number } };
+    expect(await find()).toMatchObject({
+      topology: demo.topology,
+      tube: demo.tube.type,
+      bPlus: demo.supply.bPlus,
+      latestRun: null,
+    });
+    // Two finished runs and a failed later one: the list shows the latest finished run.
+    const db = app.deps.db;
+    const user = await db
+      .selectFrom('designs')
+      .select('created_by')
+      .where('id', '=', id)
+      .executeTakeFirstOrThrow();
+    const addRun = async (status: 'done' | 'failed', finishedAt: string, jointYield: number | null) => {
+      const run = await db
+        .insertInto('runs')
+        .values({
+          workspace_id: workspaceId,
+          design_id: id,
+          revision: 1,
+          created_by: user.created_by,
+          samples: 20_000,
+          seed: tag,
+          plan: 'random',
+          chunk_size: 10_000,
+          analyses: '{}',
+          design: '{}',
+          engine_version: 'fixture',
+          chunk_total: 3,
+          status,
+          finished_at: new Date(finishedAt),
+        })
+        .returning('id')
+        .executeTakeFirstOrThrow();
+      if (status === 'done')
+        await db
+          .insertInto('run_results')
+          .values({ run_id: run.id, results: '{}', valid_count: 20_000, joint_yield: jointYield })
+          .execute();
+      return run.id;
+    };
+    await addRun('done', '2026-01-01T10:00:00Z', 0.9);
+    const latest = await addRun('done', '2026-01-02T10:00:00Z', 0.987);
+    await addRun('failed', '2026-01-03T10:00:00Z', null);
+    expect((await find()).latestRun).toEqual({
+      id: latest,
+      revision: 1,
+      samples: 20_000,
+      jointYield: 0.987,
+      finishedAt: '2026-01-02T10:00:00.000Z',
+    });
+  });
+
   it('refuses an invalid document with 400 naming the field, and stores nothing', async () => {
     const count = async () =>
       Number(

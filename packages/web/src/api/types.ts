@@ -82,6 +82,18 @@ export interface DesignSummary {
   updatedAt: string;
   archivedAt: string | null;
   createdBy?: Author;
+  /** From the latest revision (list only). */
+  topology?: string | null;
+  tube?: string | null;
+  bPlus?: number | null;
+  /** The design's latest finished run, any revision (list only). */
+  latestRun?: {
+    id: string;
+    revision: number;
+    samples: number;
+    jointYield: number | null;
+    finishedAt: string;
+  } | null;
 }
 export interface RevisionSummary {
   rev: number;

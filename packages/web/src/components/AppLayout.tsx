@@ -61,12 +61,12 @@ export function AppLayout() {
             </button>
             <button
               type="button"
-              className="rounded-md px-1 py-1 text-xs text-[#cfe0da] underline-offset-2 hover:underline"
+              className="rounded-md border border-white/20 px-2 py-0.5 text-xs text-[#cfe0da] underline-offset-2 hover:underline"
               aria-label="Sign out everywhere"
               title="End every session of your account, on every device"
               onClick={() => signOut(true)}
             >
-              · all devices
+              Sign out everywhere
             </button>
           </div>
         </div>

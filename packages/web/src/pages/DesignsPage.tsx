@@ -7,6 +7,8 @@ import { useMe } from '../auth/useMe.js';
 import { QueryStatus } from '../components/QueryState.js';
 import { inputClass, PageTitle } from '../components/ui.js';
 import { useDebounced } from '../components/useDebounced.js';
+import { formatCount, formatSig, formatYield } from '../format/formatSi.js';
+import { topologyLabel } from '../format/topologyLabel.js';
 import { formatWhen } from '../format/formatWhen.js';
 
 export function DesignsPage() {
@@ -70,6 +72,31 @@ export function DesignsPage() {
                 className="block h-full rounded-lg border border-rule bg-sheet p-4 transition-colors hover:border-glow"
               >
                 <span className="block font-medium text-ink">{d.name}</span>
+                <span className="mt-1 block text-sm text-dim" data-testid="design-glance">
+                  {topologyLabel(d.topology)}
+                  {d.tube && <> · {d.tube}</>}
+                  {d.bPlus != null && (
+                    <span className="whitespace-nowrap">
+                      {' '}
+                      · B+ <span className="num">{formatSig(d.bPlus)}</span> V
+                    </span>
+                  )}
+                </span>
+                <span className="mt-1 block text-sm" data-testid="design-latest-run">
+                  {d.latestRun && d.latestRun.jointYield != null ? (
+                    <>
+                      <span className="text-dim">Latest run: </span>
+                      <span className="num font-medium text-ink">{formatYield(d.latestRun.jointYield)}</span>
+                      <span className="text-dim">
+                        {' '}
+                        joint yield · <span className="num">{formatCount(d.latestRun.samples)}</span> samples
+                        {d.latestRun.revision !== d.latestRev && <> · rev {d.latestRun.revision}</>}
+                      </span>
+                    </>
+                  ) : (
+                    <span className="text-dim">No finished run yet</span>
+                  )}
+                </span>
                 <span className="mt-2 flex flex-wrap gap-x-3 text-xs text-dim">
                   <span className="num">rev {d.latestRev}</span>
                   <span>{formatWhen(d.updatedAt)}</span>
