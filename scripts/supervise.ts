@@ -7,6 +7,7 @@ import { mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { formatLogLine } from './formatLogLine.js';
 
 const repo = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 const port = Number(process.env.PORT ?? 3000);
@@ -81,6 +82,8 @@ interface Supervised {
 }
 
 const supervised: Supervised[] = [];
+/** SIGMATAIL_LOG_JSON=1: print the children's pino records as they are (for a log collector). */
+const rawJson = process.env.SIGMATAIL_LOG_JSON === '1';
 let stopping = false;
 
 function pipeLines(name: string, stream: NodeJS.ReadableStream | null): void {
@@ -89,7 +92,7 @@ function pipeLines(name: string, stream: NodeJS.ReadableStream | null): void {
     buf += d.toString();
     const lines = buf.split('\n');
     buf = lines.pop() ?? '';
-    for (const l of lines) process.stdout.write(`[${name}] ${l}\n`);
+    for (const l of lines) process.stdout.write(`[${name}] ${rawJson ? l : formatLogLine(l)}\n`);
   });
 }
 
