@@ -5,7 +5,6 @@ import { withMonteCarloSpread } from '../run/mergeSetupChunks.js';
 import { chunkCount, DEFAULT_CHUNK_SIZE, type RunPlan } from '../run/runPlan.js';
 import { runSetupChunk } from '../run/runSetupChunk.js';
 import { setupExtras } from '../run/setupExtras.js';
-import { largeSignalSpread } from '../run/largeSignalSpread.js';
 import { loadDesignFile } from './nominalCommand.js';
 
 /** Bad command-line input: the message is the whole one-line report. */
@@ -81,8 +80,6 @@ export async function runCommand(args: string[]): Promise<number> {
   const chunks = chunkCount(plan);
   for (let k = 0; k < chunks; k++) acc.add(runSetupChunk(setup, plan, k));
   const extras = setupExtras(setup, plan);
-  if (plan.analyses?.largeSignal && design.topology !== 'split-load')
-    extras.largeSignal = largeSignalSpread(design, setup, plan);
   const results = withMonteCarloSpread(acc.finish(extras));
   process.stdout.write(`${JSON.stringify(results)}\n`);
   return 0;

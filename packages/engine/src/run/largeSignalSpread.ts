@@ -30,6 +30,9 @@ export type LargeSignalSpread = {
   thd2Percent: LargeSignalSummary;
   h2Percent1: LargeSignalSummary;
   h3Percent1: LargeSignalSummary;
+  /** Absent in runs stored before output 2's harmonics were kept. */
+  h2Percent2?: LargeSignalSummary;
+  h3Percent2?: LargeSignalSummary;
 };
 
 function summarize(values: number[]): LargeSignalSummary {
@@ -84,5 +87,7 @@ export function largeSignalSpread(design: ResolvedDesign, setup: RunSetup, plan:
     thd2Percent: pick((r) => r.out2?.thdPercent),
     h2Percent1: pick((r) => r.out1?.h2Percent),
     h3Percent1: pick((r) => r.out1?.h3Percent),
+    h2Percent2: pick((r) => r.out2?.h2Percent),
+    h3Percent2: pick((r) => r.out2?.h3Percent),
   };
 }
