@@ -1,4 +1,10 @@
-import { MAX_SAMPLES, MAX_SEED_LENGTH, MIN_SAMPLES, SAMPLING_PLANS } from '@sigmatail/engine';
+import {
+  LARGE_SIGNAL_SUBSAMPLE,
+  MAX_SAMPLES,
+  MAX_SEED_LENGTH,
+  MIN_SAMPLES,
+  SAMPLING_PLANS,
+} from '@sigmatail/engine';
 import { z } from 'zod';
 
 /** The run statuses, in lifecycle order. */
@@ -25,9 +31,15 @@ export const launchRunBody = z.strictObject({
       influence: z.boolean().optional(),
       varianceIndices: z.boolean().optional(),
       worstCase: z.boolean().optional(),
+      largeSignal: z
+        .boolean()
+        .optional()
+        .describe(
+          `large-signal figures per sample on the run's first ${LARGE_SIGNAL_SUBSAMPLE} samples (off by default)`,
+        ),
     })
     .optional()
-    .describe('once-per-run analyses to include (all on by default)'),
+    .describe('once-per-run analyses to include (influence, variance indices, worst case on by default)'),
 });
 export type LaunchRunBody = z.infer<typeof launchRunBody>;
 
