@@ -106,7 +106,7 @@ export interface RunLaunch {
   samples: number;
   seed?: string;
   plan: SamplingPlan;
-  analyses?: { influence?: boolean; varianceIndices?: boolean; worstCase?: boolean };
+  analyses?: { influence?: boolean; varianceIndices?: boolean; worstCase?: boolean; largeSignal?: boolean };
 }
 
 export interface RunView {

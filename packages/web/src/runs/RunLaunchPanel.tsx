@@ -1,4 +1,4 @@
-import { MAX_SAMPLES, MAX_SEED_LENGTH, SAMPLING_PLANS } from '@sigmatail/engine';
+import { LARGE_SIGNAL_SUBSAMPLE, MAX_SAMPLES, MAX_SEED_LENGTH, SAMPLING_PLANS } from '@sigmatail/engine';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { workspaceQueries } from '../api/queries/workspaceQueries.js';
 import { useState } from 'react';
@@ -46,6 +46,7 @@ function RunLaunchForm(props: { designId: string; revision?: number; samples: nu
   const [influence, setInfluence] = useState(true);
   const [worstCase, setWorstCase] = useState(true);
   const [varianceIndices, setVarianceIndices] = useState(false);
+  const [largeSignal, setLargeSignal] = useState(false);
   const n = Number(samples);
   const nError =
     !Number.isInteger(n) || n < 1 || n > MAX_SAMPLES
@@ -59,7 +60,7 @@ function RunLaunchForm(props: { designId: string; revision?: number; samples: nu
         samples: n,
         seed: seed.trim() || undefined,
         plan,
-        analyses: { influence, worstCase, varianceIndices },
+        analyses: { influence, worstCase, varianceIndices, largeSignal },
       }),
     onSuccess: async ({ id }) => {
       await qc.invalidateQueries({ queryKey: runQueries.all });
@@ -122,6 +123,14 @@ function RunLaunchForm(props: { designId: string; revision?: number; samples: nu
                 onChange={(e) => setVarianceIndices(e.target.checked)}
               />{' '}
               Variance indices (Sobol, slower)
+            </label>
+            <label className="flex items-center gap-1.5">
+              <input
+                type="checkbox"
+                checked={largeSignal}
+                onChange={(e) => setLargeSignal(e.target.checked)}
+              />{' '}
+              Large-signal figures per sample (first {LARGE_SIGNAL_SUBSAMPLE} samples, slower)
             </label>
           </div>
           <div className="sm:col-span-3">
