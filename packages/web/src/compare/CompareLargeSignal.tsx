@@ -1,5 +1,6 @@
 import type { RunResults } from '@sigmatail/engine';
 import { formatSi } from '../format/formatSi.js';
+import { intervalText } from '../results/intervalText.js';
 import { LARGE_SIGNAL_FIGURES } from '../results/largeSignalFigures.js';
 
 const f = (v: number | null | undefined, unit: string) => formatSi(v ?? Number.NaN, unit);
@@ -17,16 +18,17 @@ export function CompareLargeSignal({ results }: { results: RunResults[] }) {
       </p>
     );
   const ref = results[0].largeSignal;
+  const stated = results
+    .map((r, i) => {
+      const run = String.fromCharCode(65 + i);
+      const ls = r.largeSignal;
+      return ls ? `${run} first ${ls.subsample} samples at ${f(ls.drive, 'V')} peak` : `${run} not computed`;
+    })
+    .join('; ');
   return (
     <div className="overflow-x-auto">
       <p className="mb-2 text-xs text-dim">
-        Subsample estimates: mean over each run&apos;s first{' '}
-        {results
-          .map((r, i) => `${String.fromCharCode(65 + i)} ${r.largeSignal?.subsample ?? '—'}`)
-          .join(', ')}{' '}
-        samples, with the 95 % interval of the mean. Distortion at each run&apos;s own stated drive (
-        {results.map((r, i) => `${String.fromCharCode(65 + i)} ${f(r.largeSignal?.drive, 'V')}`).join(', ')}{' '}
-        peak).
+        Each run at its own stated drive on grid 1: {stated}. Under each mean, the 95 % interval of that mean.
       </p>
       <table
         className="num w-full text-sm"
@@ -70,9 +72,7 @@ export function CompareLargeSignal({ results }: { results: RunResults[] }) {
                         {formatSi(diff, fig.unit, 2)})
                       </span>
                     )}
-                    <span className="block text-xs text-dim">
-                      {s.interval ? `${f(s.interval[0], fig.unit)} – ${f(s.interval[1], fig.unit)}` : '—'}
-                    </span>
+                    <span className="block text-xs text-dim">{intervalText(s.interval, fig.unit)}</span>
                   </td>
                 );
               })}

@@ -35,7 +35,7 @@ describe('LargeSignalSpreadPanel', () => {
     expect(screen.getByTestId('large-signal-drive')).toHaveTextContent('1.25 V peak');
     const thd = within(screen.getByTestId('large-signal-thd1'));
     expect(thd.getByText('1.2 %')).toBeInTheDocument();
-    expect(thd.getByText('1.14 % – 1.26 %')).toBeInTheDocument();
+    expect(thd.getByText('1.14 – 1.26 %')).toBeInTheDocument();
     expect(thd.getByText('0.96 %')).toBeInTheDocument();
     expect(within(screen.getByTestId('large-signal-swing2')).getByText('58 V')).toBeInTheDocument();
     expect(screen.getByTestId('large-signal-h32')).toHaveTextContent('0.35 %');

@@ -1,6 +1,7 @@
 import type { RunResults } from '@sigmatail/engine';
 import { Panel } from '../components/ui.js';
 import { formatSi } from '../format/formatSi.js';
+import { intervalText } from './intervalText.js';
 import { LARGE_SIGNAL_FIGURES } from './largeSignalFigures.js';
 
 const f = (v: number | null | undefined, unit: string) => formatSi(v ?? Number.NaN, unit);
@@ -60,9 +61,7 @@ export function LargeSignalSpreadPanel({ results }: { results: RunResults }) {
                       {fig.label}
                     </th>
                     <td className="text-right">{f(s.mean, fig.unit)}</td>
-                    <td className="text-right text-petrol">
-                      {s.interval ? `${f(s.interval[0], fig.unit)} – ${f(s.interval[1], fig.unit)}` : '—'}
-                    </td>
+                    <td className="text-right text-petrol">{intervalText(s.interval, fig.unit)}</td>
                     <td className="text-right">{f(s.min, fig.unit)}</td>
                     <td className="text-right">{f(s.max, fig.unit)}</td>
                     <td className="text-right text-dim">{s.count}</td>
