@@ -46,6 +46,22 @@ describe('per-sample large-signal figures in the once-per-run extras', () => {
     expect(mergeChunks(guitar, plan, chunks).largeSignal).toEqual(ls);
   });
 
+  it('take a larger subsample when the plan asks, and refuse one out of bounds naming the field', () => {
+    const more = { ...plan, analyses: { ...plan.analyses, largeSignalSamples: 40 } };
+    const wider = runExtras(guitar, more).largeSignal!;
+    expect(wider.subsample).toBe(40);
+    expect(wider.swing1.count).toBe(40);
+    // The first 32 samples are the same ones: the figures of the default subsample lie within.
+    expect(wider.swing1.min!).toBeLessThanOrEqual(ls.swing1.min!);
+    expect(wider.swing1.max!).toBeGreaterThanOrEqual(ls.swing1.max!);
+    expect(() => runExtras(guitar, { ...plan, analyses: { largeSignalSamples: 513 } })).toThrow(
+      'analyses.largeSignalSamples must be an integer 32..512',
+    );
+    expect(() => chunkCount({ ...plan, analyses: { largeSignalSamples: 31.5 } })).toThrow(
+      /largeSignalSamples/,
+    );
+  });
+
   it('vary from sample to sample (each sample at its own parts and tubes)', () => {
     expect(ls.swing1.max!).toBeGreaterThan(ls.swing1.min!);
     expect(ls.thd1Percent.max!).toBeGreaterThan(ls.thd1Percent.min!);
