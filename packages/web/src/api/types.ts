@@ -106,7 +106,13 @@ export interface RunLaunch {
   samples: number;
   seed?: string;
   plan: SamplingPlan;
-  analyses?: { influence?: boolean; varianceIndices?: boolean; worstCase?: boolean; largeSignal?: boolean };
+  analyses?: {
+    influence?: boolean;
+    varianceIndices?: boolean;
+    worstCase?: boolean;
+    largeSignal?: boolean;
+    largeSignalSamples?: number;
+  };
 }
 
 export interface RunView {
@@ -119,7 +125,7 @@ export interface RunView {
   seed: string;
   plan: SamplingPlan;
   chunkSize: number;
-  analyses: Record<string, boolean>;
+  analyses: Record<string, boolean | number>;
   engineVersion: string;
   progress: { done: number; total: number; fraction: number };
   error: string | null;
