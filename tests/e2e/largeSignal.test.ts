@@ -17,9 +17,21 @@ describe('engineer reads the large-signal figures per sample', () => {
     const launch = async (seed: string, largeSignal: boolean) => {
       await page.getByLabel('Samples N').fill('2000');
       await page.getByLabel('Seed (blank = new)').fill(seed);
-      const box = page.getByLabel(/Large-signal figures per sample \(first 32 samples, slower\)/);
+      const box = page.getByLabel(/Large-signal figures per sample \(on a subsample, slower\)/);
       expect(await box.isChecked()).toBe(false); // off unless asked
-      if (largeSignal) await box.check();
+      if (largeSignal) {
+        await box.check();
+        const size = page.getByLabel(/Subsample: first/);
+        expect(await size.inputValue()).toBe('32');
+        await size.fill('600');
+        await page.getByText('A whole number from 32 to 512').waitFor();
+        await page
+          .locator('form')
+          .filter({ has: box })
+          .screenshot({ path: path.join(OUTPUT, '29a-launch-large-signal-bad-size.png') });
+        expect(await page.getByRole('button', { name: 'Launch run' }).isDisabled()).toBe(true);
+        await size.fill('48');
+      }
       if (largeSignal)
         await page
           .locator('form')
@@ -34,14 +46,14 @@ describe('engineer reads the large-signal figures per sample', () => {
     const withLs = await launch('e2e-ls-on', true);
     const card = page.getByTestId('large-signal-spread');
     await card.waitFor();
-    expect(await page.getByTestId('large-signal-subsample').textContent()).toBe('32');
+    expect(await page.getByTestId('large-signal-subsample').textContent()).toBe('48');
     expect(await page.getByTestId('large-signal-drive').textContent()).toMatch(/^[\d.]+ m?V peak$/);
     for (const row of ['swing1', 'swing2', 'thd1', 'thd2', 'h21', 'h31', 'h22', 'h32']) {
       const cells = await page.getByTestId(`large-signal-${row}`).locator('td').allTextContents();
       // mean, interval, min, max, samples
       expect(cells, row).toHaveLength(5);
       expect(cells[1], row).toMatch(/^[\d.]+( \S+)? – [\d.]+ \S+$/);
-      expect(cells[4], row).toBe('32');
+      expect(cells[4], row).toBe('48');
     }
     expect(await page.getByTestId('large-signal-thd1').locator('td').first().textContent()).toMatch(/ %$/);
     expect(await page.getByTestId('large-signal-swing1').locator('td').first().textContent()).toMatch(/ V$/);
