@@ -50,7 +50,8 @@ export function ResultsView({
       <Panel title="Worst case against Monte Carlo">
         <WorstCaseTable results={results} />
       </Panel>
-      <LargeSignalSpreadPanel results={results} />
+      {/* A printed report leaves out the "not computed" note. */}
+      {(results.largeSignal || !printable) && <LargeSignalSpreadPanel results={results} />}
     </div>
   );
 }
