@@ -155,7 +155,13 @@ export interface RunsTable {
   seed: string;
   plan: RunPlanKind;
   chunk_size: number;
-  analyses: Json<{ influence?: boolean; varianceIndices?: boolean; worstCase?: boolean }>;
+  analyses: Json<{
+    influence?: boolean;
+    varianceIndices?: boolean;
+    worstCase?: boolean;
+    largeSignal?: boolean;
+    largeSignalSamples?: number;
+  }>;
   /** Snapshot of the revision's document, so a run never depends on later edits. */
   design: Json<unknown>;
   engine_version: string;

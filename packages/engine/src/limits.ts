@@ -19,3 +19,11 @@ export const MAX_SEED_LENGTH = 200;
 export const SAMPLING_PLANS = ['random', 'lhs', 'sobol'] as const;
 /** One sampling plan id. */
 export type SamplingPlanId = (typeof SAMPLING_PLANS)[number];
+/**
+ * Bounds on a run's large-signal subsample (samples the per-sample large-signal figures are
+ * computed on; ~5 ms CPU each). No fewer than the default 32, where the interval's normal
+ * approximation is fair; at most 512 (a few seconds in the once-per-run task).
+ */
+export const MIN_LARGE_SIGNAL_SAMPLES = 32;
+/** Most samples a run's large-signal subsample may hold. */
+export const MAX_LARGE_SIGNAL_SAMPLES = 512;

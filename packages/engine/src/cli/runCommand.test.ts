@@ -15,6 +15,10 @@ describe('sigmatail run', () => {
       chunkSize: 65_536,
     });
     expect(parseRunArgs(['d.json', '--samples=5']).plan.plan).toBe('random');
+    expect(parseRunArgs(['d.json', '--samples=5', '--large-signal-samples', '64']).plan.analyses).toEqual({
+      largeSignal: true,
+      largeSignalSamples: 64,
+    });
   });
 
   it.each([
@@ -25,6 +29,14 @@ describe('sigmatail run', () => {
     [['d.json', '--samples', '10', '--plan', 'grid'], '--plan must be one of random|lhs|sobol'],
     [['d.json', '--samples', '10', '--chunks', '2'], 'unknown option --chunks'],
     [['--samples', '10'], 'missing design file'],
+    [
+      ['d.json', '--samples', '10', '--large-signal-samples', '8'],
+      '--large-signal-samples must be an integer 32..512',
+    ],
+    [
+      ['d.json', '--samples', '10', '--large-signal-samples', '600'],
+      '--large-signal-samples must be an integer 32..512',
+    ],
   ])('rejects %j', (args, message) => {
     expect(() => parseRunArgs(args)).toThrow(message);
   });

@@ -1,19 +1,26 @@
-import { SAMPLING_PLANS, MAX_SAMPLES, MIN_SAMPLES, MAX_SEED_LENGTH, type SamplingPlanId } from '../limits.js';
+import {
+  SAMPLING_PLANS,
+  MAX_LARGE_SIGNAL_SAMPLES,
+  MAX_SAMPLES,
+  MIN_LARGE_SIGNAL_SAMPLES,
+  MIN_SAMPLES,
+  MAX_SEED_LENGTH,
+  type SamplingPlanId,
+} from '../limits.js';
 import { designSetup } from '../run/designSetup.js';
 import { createRunAccumulator } from '../run/runAccumulator.js';
 import { withMonteCarloSpread } from '../run/mergeSetupChunks.js';
 import { chunkCount, DEFAULT_CHUNK_SIZE, type RunPlan } from '../run/runPlan.js';
 import { runSetupChunk } from '../run/runSetupChunk.js';
 import { setupExtras } from '../run/setupExtras.js';
-import { largeSignalSpread } from '../run/largeSignalSpread.js';
 import { loadDesignFile } from './nominalCommand.js';
 
 /** Bad command-line input: the message is the whole one-line report. */
 class ArgumentError extends Error {}
 
 /**
- * Parses `FILE.json --samples N [--seed S] [--plan random|lhs|sobol] [--large-signal]`; throws
- * ArgumentError.
+ * Parses `FILE.json --samples N [--seed S] [--plan random|lhs|sobol] [--large-signal]
+ * [--large-signal-samples M]`; throws ArgumentError.
  */
 export function parseRunArgs(args: readonly string[]): { file: string; plan: RunPlan } {
   let file: string | undefined;
@@ -26,7 +33,8 @@ export function parseRunArgs(args: readonly string[]): { file: string; plan: Run
         opts[name] = 'on';
         continue;
       }
-      if (!['samples', 'seed', 'plan'].includes(name)) throw new ArgumentError(`unknown option --${name}`);
+      if (!['samples', 'seed', 'plan', 'large-signal-samples'].includes(name))
+        throw new ArgumentError(`unknown option --${name}`);
       const value = inline ?? args[++i];
       if (value === undefined) throw new ArgumentError(`--${name} needs a value`);
       opts[name] = value;
@@ -50,13 +58,24 @@ export function parseRunArgs(args: readonly string[]): { file: string; plan: Run
   }
   const plan: RunPlan = { samples, seed, plan: kind as SamplingPlanId, chunkSize: DEFAULT_CHUNK_SIZE };
   if (opts['large-signal']) plan.analyses = { largeSignal: true };
+  const lsText = opts['large-signal-samples'];
+  if (lsText !== undefined) {
+    const m = /^\d+$/.test(lsText) ? Number(lsText) : NaN;
+    if (!(m >= MIN_LARGE_SIGNAL_SAMPLES && m <= MAX_LARGE_SIGNAL_SAMPLES)) {
+      throw new ArgumentError(
+        `--large-signal-samples must be an integer ${MIN_LARGE_SIGNAL_SAMPLES}..${MAX_LARGE_SIGNAL_SAMPLES}`,
+      );
+    }
+    plan.analyses = { largeSignal: true, largeSignalSamples: m };
+  }
   return { file, plan };
 }
 
 /**
- * `sigmatail run FILE.json --samples N [--seed S] [--plan random|lhs|sobol] [--large-signal]` (seed
- * defaults to '0', plan to random; --large-signal adds the per-sample large-signal figures on the
- * first 32 samples). Runs every chunk in this process, merging as it goes (memory flat in N),
+ * `sigmatail run FILE.json --samples N [--seed S] [--plan random|lhs|sobol] [--large-signal]
+ * [--large-signal-samples M]` (seed defaults to '0', plan to random; --large-signal adds the
+ * per-sample large-signal figures on the first 32 samples, --large-signal-samples on the first M,
+ * 32..512). Runs every chunk in this process, merging as it goes (memory flat in N),
  * and prints one JSON object: the run results (per metric summary with quantiles and histogram,
  * per spec yield with Wilson and Clopper–Pearson intervals, PPM, Cp, Cpk, joint yield, influence,
  * variance indices, worst case beside the Monte Carlo spread). Exit 0 ok, 2 bad input (one line
@@ -81,8 +100,6 @@ export async function runCommand(args: string[]): Promise<number> {
   const chunks = chunkCount(plan);
   for (let k = 0; k < chunks; k++) acc.add(runSetupChunk(setup, plan, k));
   const extras = setupExtras(setup, plan);
-  if (plan.analyses?.largeSignal && design.topology !== 'split-load')
-    extras.largeSignal = largeSignalSpread(design, setup, plan);
   const results = withMonteCarloSpread(acc.finish(extras));
   process.stdout.write(`${JSON.stringify(results)}\n`);
   return 0;

@@ -39,7 +39,7 @@ export function designSetup(design: ResolvedDesign, options?: DesignSetupOptions
     if (part) parts[name] = preparePartSpread(part, `parts.${name}`);
   }
   const model = createSampleModel(kernel, parts, prepareTubeSpread(design.tube.spread, 'tube.spread'));
-  const setup = createRunSetup(model, design.specs);
+  const setup: RunSetup = { ...createRunSetup(model, design.specs), design };
   entry.set(optionKey, setup);
   return setup;
 }

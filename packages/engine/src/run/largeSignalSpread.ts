@@ -5,7 +5,10 @@ import { chunkCount, type RunPlan } from './runPlan.js';
 import type { RunSetup } from './runSetup.js';
 import { evaluateChunk } from './runSetupChunk.js';
 
-/** Samples of a run the per-sample large-signal figures are computed on (the run's first ones). */
+/**
+ * Samples of a run the per-sample large-signal figures are computed on (the run's first ones),
+ * unless plan.analyses.largeSignalSamples says otherwise.
+ */
 export const LARGE_SIGNAL_SUBSAMPLE = 32;
 
 /** One large-signal figure over the subsample: mean with its 95 % interval, min and max. */
@@ -18,7 +21,7 @@ export type LargeSignalSummary = {
   max: number | null;
 };
 
-/** Per-sample large-signal figures of a run, on its first {@link LARGE_SIGNAL_SUBSAMPLE} samples. */
+/** Per-sample large-signal figures of a run, on its first `subsample` samples. */
 export type LargeSignalSpread = {
   subsample: number;
   /** Grid-1 drive (V peak) the distortion is stated at: half the nominal symmetrical drive limit. */
@@ -30,6 +33,9 @@ export type LargeSignalSpread = {
   thd2Percent: LargeSignalSummary;
   h2Percent1: LargeSignalSummary;
   h3Percent1: LargeSignalSummary;
+  /** Absent in runs stored before output 2's harmonics were kept. */
+  h2Percent2?: LargeSignalSummary;
+  h3Percent2?: LargeSignalSummary;
 };
 
 function summarize(values: number[]): LargeSignalSummary {
@@ -49,7 +55,8 @@ function summarize(values: number[]): LargeSignalSummary {
 }
 
 /**
- * The large-signal figures (largeSignalReport) per sample on the run's first 32 samples, each
+ * The large-signal figures (largeSignalReport) per sample on the run's first 32 samples (or
+ * plan.analyses.largeSignalSamples), each
  * at its own parts and tube multipliers, at one stated drive (half the nominal symmetrical
  * limit): the quasi-static solve costs ~10–20 ms a sample, too much for every sample.
  *
@@ -60,7 +67,7 @@ export function largeSignalSpread(design: ResolvedDesign, setup: RunSetup, plan:
   const drive = nominal.drive;
   const inputs = setup.model.kernel.inputs;
   const rows: StageInputs[] = [];
-  const want = Math.min(plan.samples, LARGE_SIGNAL_SUBSAMPLE);
+  const want = Math.min(plan.samples, plan.analyses?.largeSignalSamples ?? LARGE_SIGNAL_SUBSAMPLE);
   for (let k = 0; k < chunkCount(plan) && rows.length < want; k++) {
     const { columns, n } = evaluateChunk(setup, plan, k, want - rows.length);
     for (let s = 0; s < n; s++) {
@@ -84,5 +91,7 @@ export function largeSignalSpread(design: ResolvedDesign, setup: RunSetup, plan:
     thd2Percent: pick((r) => r.out2?.thdPercent),
     h2Percent1: pick((r) => r.out1?.h2Percent),
     h3Percent1: pick((r) => r.out1?.h3Percent),
+    h2Percent2: pick((r) => r.out2?.h2Percent),
+    h3Percent2: pick((r) => r.out2?.h3Percent),
   };
 }

@@ -1,4 +1,12 @@
-import { MAX_SAMPLES, MAX_SEED_LENGTH, MIN_SAMPLES, SAMPLING_PLANS, type SamplingPlanId } from '../limits.js';
+import {
+  MAX_LARGE_SIGNAL_SAMPLES,
+  MAX_SAMPLES,
+  MAX_SEED_LENGTH,
+  MIN_LARGE_SIGNAL_SAMPLES,
+  MIN_SAMPLES,
+  SAMPLING_PLANS,
+  type SamplingPlanId,
+} from '../limits.js';
 
 /**
  * Samples per chunk unless a plan says otherwise. Stored in every plan, so a run keeps its
@@ -15,6 +23,8 @@ export type RunAnalyses = {
   varianceIndices?: boolean;
   worstCase?: boolean;
   largeSignal?: boolean;
+  /** Size of the large-signal subsample (the run's first samples), 32..512; default 32. */
+  largeSignalSamples?: number;
 };
 
 /**
@@ -46,6 +56,15 @@ export function validateRunPlan(plan: RunPlan): void {
     throw new RangeError(`plan must be one of ${SAMPLING_PLANS.join(', ')}`);
   if (!Number.isInteger(chunkSize) || chunkSize < 1 || chunkSize > 1_048_576) {
     throw new RangeError('chunkSize must be an integer 1..1048576');
+  }
+  const ls = plan.analyses?.largeSignalSamples;
+  if (
+    ls !== undefined &&
+    (!Number.isInteger(ls) || ls < MIN_LARGE_SIGNAL_SAMPLES || ls > MAX_LARGE_SIGNAL_SAMPLES)
+  ) {
+    throw new RangeError(
+      `analyses.largeSignalSamples must be an integer ${MIN_LARGE_SIGNAL_SAMPLES}..${MAX_LARGE_SIGNAL_SAMPLES}`,
+    );
   }
 }
 

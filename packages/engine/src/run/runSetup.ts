@@ -1,3 +1,4 @@
+import type { ResolvedDesign } from '../design/designSchema.js';
 import type { HistogramGrid } from '../stats/histogramGrid.js';
 import { pilotGrids } from './pilotGrids.js';
 import type { SampleModel } from './sampleModel.js';
@@ -20,6 +21,8 @@ export type RunSetup = {
   readonly grids: readonly HistogramGrid[];
   /** Column of the kernel's 'valid' metric (1 = bias point exists), or -1. */
   readonly validMetric: number;
+  /** The design the setup was built from (designSetup sets it), for analyses beyond the kernel. */
+  readonly design?: ResolvedDesign;
 };
 
 /**

@@ -5,6 +5,7 @@ import { rankInfluenceFromColumns } from '../influence/rankInfluenceFromColumns.
 import { tornado } from '../influence/tornado.js';
 import { varianceIndices } from '../influence/varianceIndices.js';
 import { worstCase } from '../worstcase/worstCase.js';
+import { largeSignalSpread } from './largeSignalSpread.js';
 import { finiteOrNull, type RunResults } from './runResults.js';
 import { chunkCount, type RunPlan } from './runPlan.js';
 import type { RunSetup } from './runSetup.js';
@@ -14,7 +15,8 @@ import { evaluateChunk } from './runSetupChunk.js';
  * Work done once per run rather than per chunk: nominal metrics, influence (local sensitivities,
  * Spearman/SRRC on the first min(N, 20 000) samples regenerated from the run's own chunks,
  * tornado), variance-based indices (their own A/B samples, VARIANCE_BASE_SAMPLES·(d+2)
- * evaluations) and worst case, as switched on in plan.analyses (all on by default).
+ * evaluations) and worst case, as switched on in plan.analyses (all on by default), and the
+ * per-sample large-signal figures on a subsample (off by default; needs `setup.design`).
  * Pure function of (setup, plan); mergeChunks calls it unless given precomputed extras.
  */
 export function setupExtras(setup: RunSetup, plan: RunPlan): Partial<RunResults> {
@@ -28,6 +30,9 @@ export function setupExtras(setup: RunSetup, plan: RunPlan): Partial<RunResults>
   if (a.varianceIndices !== false && model.dims.length > 0)
     extras.varianceIndices = varianceIndices(model, plan.seed);
   if (a.worstCase !== false) extras.worstCase = worstCase(model);
+  // Needs the design itself (not only the kernel); the model is the long-tailed pair's.
+  if (a.largeSignal === true && setup.design && setup.design.topology !== 'split-load')
+    extras.largeSignal = largeSignalSpread(setup.design, setup, plan);
   return extras;
 }
 

@@ -1,8 +1,18 @@
-import { MAX_SAMPLES, MAX_SEED_LENGTH, MIN_SAMPLES, SAMPLING_PLANS } from '@sigmatail/engine';
+import {
+  LARGE_SIGNAL_SUBSAMPLE,
+  MAX_LARGE_SIGNAL_SAMPLES,
+  MIN_LARGE_SIGNAL_SAMPLES,
+  MAX_SAMPLES,
+  MAX_SEED_LENGTH,
+  MIN_SAMPLES,
+  SAMPLING_PLANS,
+} from '@sigmatail/engine';
 import { z } from 'zod';
 
 /** The run statuses, in lifecycle order. */
 export const RUN_STATUSES = ['queued', 'running', 'merging', 'done', 'failed', 'cancelled'] as const;
+
+const LS_SAMPLES = `must be an integer ${MIN_LARGE_SIGNAL_SAMPLES}..${MAX_LARGE_SIGNAL_SAMPLES}`;
 
 /** POST /api/runs: launch a run of one design revision. */
 export const launchRunBody = z.strictObject({
@@ -25,9 +35,23 @@ export const launchRunBody = z.strictObject({
       influence: z.boolean().optional(),
       varianceIndices: z.boolean().optional(),
       worstCase: z.boolean().optional(),
+      largeSignal: z
+        .boolean()
+        .optional()
+        .describe(
+          `large-signal figures per sample on the run's first ${LARGE_SIGNAL_SUBSAMPLE} samples (off by default)`,
+        ),
+      largeSignalSamples: z
+        .int({ message: LS_SAMPLES })
+        .min(MIN_LARGE_SIGNAL_SAMPLES, LS_SAMPLES)
+        .max(MAX_LARGE_SIGNAL_SAMPLES, LS_SAMPLES)
+        .optional()
+        .describe(
+          `size of the large-signal subsample (default ${LARGE_SIGNAL_SUBSAMPLE}); used with largeSignal`,
+        ),
     })
     .optional()
-    .describe('once-per-run analyses to include (all on by default)'),
+    .describe('once-per-run analyses to include (influence, variance indices, worst case on by default)'),
 });
 export type LaunchRunBody = z.infer<typeof launchRunBody>;
 
@@ -55,7 +79,9 @@ export const runView = z.object({
   seed: z.string(),
   plan: z.enum(SAMPLING_PLANS),
   chunkSize: z.int(),
-  analyses: z.record(z.string(), z.boolean()),
+  analyses: z
+    .record(z.string(), z.union([z.boolean(), z.int()]))
+    .describe('as launched: switches, and largeSignalSamples when set'),
   engineVersion: z.string(),
   progress: z.object({
     done: z.int().describe('finished queue tasks (sample chunks and the once-per-run task)'),

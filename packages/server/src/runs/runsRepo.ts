@@ -52,7 +52,7 @@ function present(r: RunRow): RunView {
     seed: r.seed,
     plan: r.plan,
     chunkSize: r.chunk_size,
-    analyses: r.analyses as Record<string, boolean>,
+    analyses: r.analyses as Record<string, boolean | number>,
     engineVersion: r.engine_version,
     progress: {
       done: r.chunks_done,

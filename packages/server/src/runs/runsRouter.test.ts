@@ -62,6 +62,10 @@ describe('runs API', () => {
       [{ ...SMALL, designId, seed: '' }, 400, 'seed'],
       [{ ...SMALL, designId: 'nope' }, 400, 'designId'],
       [{ ...SMALL, designId, analyses: { sideways: true } }, 400, 'analyses'],
+      [{ ...SMALL, designId, analyses: { largeSignal: 'yes' } }, 400, 'analyses.largeSignal'],
+      [{ ...SMALL, designId, analyses: { largeSignalSamples: 31 } }, 400, 'analyses.largeSignalSamples'],
+      [{ ...SMALL, designId, analyses: { largeSignalSamples: 513 } }, 400, 'analyses.largeSignalSamples'],
+      [{ ...SMALL, designId, analyses: { largeSignalSamples: 40.5 } }, 400, 'analyses.largeSignalSamples'],
       [{ ...SMALL, designId: crypto.randomUUID() }, 404, 'designId'],
       [{ ...SMALL, designId, revision: 99 }, 404, 'revision'],
     ];
@@ -177,6 +181,27 @@ describe('runs API', () => {
     const run = (await engineer.get(`/api/runs/${res.body.id}`)).body.run;
     expect(run.seed).toMatch(/^[0-9a-f]{16}$/);
     await waitDone(engineer, res.body.id);
+  });
+
+  it('adds the per-sample large-signal figures when asked, equal to the engine run directly', async () => {
+    const body = {
+      ...SMALL,
+      samples: 100,
+      analyses: { ...SMALL.analyses, largeSignal: true, largeSignalSamples: 40 },
+    };
+    const res = await production.post('/api/runs', { ...body, designId });
+    expect(res.status).toBe(202);
+    const run = await waitDone(viewer, res.body.id);
+    expect(run).toMatchObject({
+      status: 'done',
+      analyses: { varianceIndices: false, largeSignal: true, largeSignalSamples: 40 },
+    });
+    const parsed = parseDesign(exampleDesign());
+    if (!parsed.ok) throw new Error('example design does not parse');
+    const expected = runExtras(parsed.design, { ...body, chunkSize: 1000 }).largeSignal;
+    const results = (await viewer.get(`/api/runs/${res.body.id}/results`)).body.results;
+    expect(results.largeSignal.subsample).toBe(40);
+    expect(results.largeSignal).toEqual(JSON.parse(JSON.stringify(expected)));
   });
 
   it('cancels an active run once, and lists runs with filters', async () => {

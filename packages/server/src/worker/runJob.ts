@@ -4,7 +4,13 @@ export type JobPlan = {
   seed: string;
   plan: 'random' | 'lhs' | 'sobol';
   chunkSize: number;
-  analyses?: { influence?: boolean; varianceIndices?: boolean; worstCase?: boolean };
+  analyses?: {
+    influence?: boolean;
+    varianceIndices?: boolean;
+    worstCase?: boolean;
+    largeSignal?: boolean;
+    largeSignalSamples?: number;
+  };
 };
 
 /**

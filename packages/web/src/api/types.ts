@@ -118,7 +118,13 @@ export interface RunLaunch {
   samples: number;
   seed?: string;
   plan: SamplingPlan;
-  analyses?: { influence?: boolean; varianceIndices?: boolean; worstCase?: boolean };
+  analyses?: {
+    influence?: boolean;
+    varianceIndices?: boolean;
+    worstCase?: boolean;
+    largeSignal?: boolean;
+    largeSignalSamples?: number;
+  };
 }
 
 export interface RunView {
@@ -131,7 +137,7 @@ export interface RunView {
   seed: string;
   plan: SamplingPlan;
   chunkSize: number;
-  analyses: Record<string, boolean>;
+  analyses: Record<string, boolean | number>;
   engineVersion: string;
   progress: { done: number; total: number; fraction: number };
   error: string | null;

@@ -2,6 +2,7 @@ import { useQueries, useQuery } from '@tanstack/react-query';
 import { useSearchParams } from 'react-router';
 import { runQueries } from '../api/queries/runQueries.js';
 import { CompareHistograms } from '../compare/CompareHistograms.js';
+import { CompareLargeSignal } from '../compare/CompareLargeSignal.js';
 import { CompareTable } from '../compare/CompareTable.js';
 import { ErrorNote, Loading, QueryStatus } from '../components/QueryState.js';
 import { PageTitle, Panel } from '../components/ui.js';
@@ -44,6 +45,9 @@ export function ComparePage() {
           </Panel>
           <Panel title="Distributions on common bins">
             <CompareHistograms results={data.map((d) => d.results)} metrics={metrics} />
+          </Panel>
+          <Panel title="Large signal per sample (subsample estimates)">
+            <CompareLargeSignal results={data.map((d) => d.results)} />
           </Panel>
         </>
       )}

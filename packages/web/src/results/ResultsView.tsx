@@ -3,6 +3,7 @@ import { Panel } from '../components/ui.js';
 import { BalanceBandPanel } from './BalanceBandPanel.js';
 import { ConvergencePanel } from './ConvergencePanel.js';
 import { InfluencePanel } from './InfluencePanel.js';
+import { LargeSignalSpreadPanel } from './LargeSignalSpreadPanel.js';
 import { MetricHistograms } from './MetricHistograms.js';
 import { ScatterPanel } from './ScatterPanel.js';
 import { SummaryCards } from './SummaryCards.js';
@@ -49,6 +50,8 @@ export function ResultsView({
       <Panel title="Worst case against Monte Carlo">
         <WorstCaseTable results={results} />
       </Panel>
+      {/* A printed report leaves out the "not computed" note. */}
+      {(results.largeSignal || !printable) && <LargeSignalSpreadPanel results={results} />}
     </div>
   );
 }

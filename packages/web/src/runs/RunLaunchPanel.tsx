@@ -1,4 +1,11 @@
-import { MAX_SAMPLES, MAX_SEED_LENGTH, SAMPLING_PLANS } from '@sigmatail/engine';
+import {
+  LARGE_SIGNAL_SUBSAMPLE,
+  MAX_LARGE_SIGNAL_SAMPLES,
+  MAX_SAMPLES,
+  MAX_SEED_LENGTH,
+  MIN_LARGE_SIGNAL_SAMPLES,
+  SAMPLING_PLANS,
+} from '@sigmatail/engine';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { workspaceQueries } from '../api/queries/workspaceQueries.js';
 import { useState } from 'react';
@@ -46,10 +53,17 @@ function RunLaunchForm(props: { designId: string; revision?: number; samples: nu
   const [influence, setInfluence] = useState(true);
   const [worstCase, setWorstCase] = useState(true);
   const [varianceIndices, setVarianceIndices] = useState(false);
+  const [largeSignal, setLargeSignal] = useState(false);
+  const [lsSamples, setLsSamples] = useState(String(LARGE_SIGNAL_SUBSAMPLE));
   const n = Number(samples);
   const nError =
     !Number.isInteger(n) || n < 1 || n > MAX_SAMPLES
       ? `A whole number from 1 to ${MAX_SAMPLES.toLocaleString('en-US')}`
+      : null;
+  const m = Number(lsSamples);
+  const lsError =
+    largeSignal && (!Number.isInteger(m) || m < MIN_LARGE_SIGNAL_SAMPLES || m > MAX_LARGE_SIGNAL_SAMPLES)
+      ? `A whole number from ${MIN_LARGE_SIGNAL_SAMPLES} to ${MAX_LARGE_SIGNAL_SAMPLES}`
       : null;
   const launch = useMutation({
     mutationFn: () =>
@@ -59,7 +73,13 @@ function RunLaunchForm(props: { designId: string; revision?: number; samples: nu
         samples: n,
         seed: seed.trim() || undefined,
         plan,
-        analyses: { influence, worstCase, varianceIndices },
+        analyses: {
+          influence,
+          worstCase,
+          varianceIndices,
+          largeSignal,
+          ...(largeSignal ? { largeSignalSamples: m } : {}),
+        },
       }),
     onSuccess: async ({ id }) => {
       await qc.invalidateQueries({ queryKey: runQueries.all });
@@ -76,7 +96,7 @@ function RunLaunchForm(props: { designId: string; revision?: number; samples: nu
       <form
         onSubmit={(e) => {
           e.preventDefault();
-          if (!nError) launch.mutate();
+          if (!nError && !lsError) launch.mutate();
         }}
       >
         <fieldset disabled={!allowed} className="grid gap-3 sm:grid-cols-3">
@@ -123,9 +143,41 @@ function RunLaunchForm(props: { designId: string; revision?: number; samples: nu
               />{' '}
               Variance indices (Sobol, slower)
             </label>
+            <label className="flex items-center gap-1.5">
+              <input
+                type="checkbox"
+                checked={largeSignal}
+                onChange={(e) => setLargeSignal(e.target.checked)}
+              />{' '}
+              Large-signal figures per sample (on a subsample, slower)
+            </label>
+            {largeSignal && (
+              <label className="flex items-center gap-1.5">
+                Subsample: first
+                <input
+                  id="run-ls-samples"
+                  className="num w-16 rounded-md border border-rule bg-white px-1.5 py-0.5 text-sm"
+                  inputMode="numeric"
+                  value={lsSamples}
+                  onChange={(e) => setLsSamples(e.target.value)}
+                  aria-invalid={!!lsError}
+                  aria-describedby={lsError ? 'run-ls-samples-error' : undefined}
+                />
+                samples
+                {lsError && (
+                  <span id="run-ls-samples-error" className="text-xs text-brick">
+                    {lsError}
+                  </span>
+                )}
+              </label>
+            )}
           </div>
           <div className="sm:col-span-3">
-            <Button tone="primary" type="submit" disabled={!allowed || launch.isPending || !!nError}>
+            <Button
+              tone="primary"
+              type="submit"
+              disabled={!allowed || launch.isPending || !!nError || !!lsError}
+            >
               {launch.isPending ? 'Launching…' : 'Launch run'}
             </Button>
           </div>
