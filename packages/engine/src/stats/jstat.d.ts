@@ -12,6 +12,7 @@ declare module 'jstat' {
     uniform: Dist2;
     lognormal: Dist2;
     beta: Dist2;
+    studentt: { inv(p: number, df: number): number; cdf(x: number, df: number): number };
     ibeta(x: number, a: number, b: number): number;
     gammaln(x: number): number;
     percentile(x: number[], p: number): number;
