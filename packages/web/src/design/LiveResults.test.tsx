@@ -33,7 +33,7 @@ describe('live nominal results', () => {
     expect(evaluateNominal(v1).ok).toBe(true);
   });
 
-  it('shows a split-load design as one section with plate and cathode outputs, no trim or plots', () => {
+  it('shows a split-load design as one section with plate and cathode outputs and its Bode plot, no trim', () => {
     const d = { ...defaultDesign(), topology: 'split-load' as const };
     d.supply = { bPlus: 300, tail: 0 };
     Object.assign(d.parts, {
@@ -48,7 +48,13 @@ describe('live nominal results', () => {
     expect(screen.getByTestId('balance').textContent).toMatch(/dB$/);
     expect(within(panel).queryByText('Nearest E24')).toBeNull();
     expect(within(panel).queryByText('CMRR')).toBeNull();
-    expect(screen.queryByRole('img', { name: 'Balance against frequency' })).toBeNull();
+    expect(screen.getByRole('img', { name: 'Balance against frequency' })).toBeInTheDocument();
+    // A coupling capacitor into the cathode's load gives that output a low corner.
+    const cap = (value: string) => ({ value, tolerance: 10, spread: { kind: 'normal' as const } });
+    d.parts.rload2 = { value: '220k', tolerance: 10, spread: { kind: 'normal' } };
+    Object.assign(d.parts, { cout2: cap('47n') });
+    render(<LiveResults state={evaluateNominal(d)} />);
+    expect(screen.getAllByTestId('corners')[1].textContent).toMatch(/out 2 \d[\d.]* Hz … /);
   });
 
   it('the topology choice offers the split-load splitter and then shows only its parts', async () => {

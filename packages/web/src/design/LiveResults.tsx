@@ -58,7 +58,10 @@ export function LiveResults({ state }: { state: NominalState }) {
         </ul>
       )}
       {report.status === 'ok' && state.design.topology === 'split-load' && (
-        <SplitLoadResults report={report} />
+        <>
+          <SplitLoadResults report={report} />
+          <FrequencyPanel design={state.design} metrics={m} />
+        </>
       )}
       {report.status === 'ok' && state.design.topology !== 'split-load' && (
         <>
