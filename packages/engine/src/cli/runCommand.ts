@@ -81,8 +81,7 @@ export async function runCommand(args: string[]): Promise<number> {
   const chunks = chunkCount(plan);
   for (let k = 0; k < chunks; k++) acc.add(runSetupChunk(setup, plan, k));
   const extras = setupExtras(setup, plan);
-  if (plan.analyses?.largeSignal && design.topology !== 'split-load')
-    extras.largeSignal = largeSignalSpread(design, setup, plan);
+  if (plan.analyses?.largeSignal) extras.largeSignal = largeSignalSpread(design, setup, plan);
   const results = withMonteCarloSpread(acc.finish(extras));
   process.stdout.write(`${JSON.stringify(results)}\n`);
   return 0;

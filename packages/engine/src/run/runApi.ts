@@ -46,9 +46,8 @@ export function mergeChunks(
 export function runExtras(design: ResolvedDesign, plan: RunPlan): Partial<RunResults> {
   const setup = designSetup(design);
   const extras = setupExtras(setup, plan);
-  // The large-signal model is the long-tailed pair's; none for split-load.
-  if (plan.analyses?.largeSignal === true && design.topology !== 'split-load')
-    extras.largeSignal = largeSignalSpread(design, setup, plan);
+  // largeSignalReport dispatches on the topology: the pair and the split-load alike.
+  if (plan.analyses?.largeSignal === true) extras.largeSignal = largeSignalSpread(design, setup, plan);
   return extras;
 }
 

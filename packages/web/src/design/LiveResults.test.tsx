@@ -33,7 +33,7 @@ describe('live nominal results', () => {
     expect(evaluateNominal(v1).ok).toBe(true);
   });
 
-  it('shows a split-load design as one section with plate and cathode outputs and its Bode plot, no trim', () => {
+  it('shows a split-load design as one section with plate and cathode outputs, its Bode plot and large signal, no trim', () => {
     const d = { ...defaultDesign(), topology: 'split-load' as const };
     d.supply = { bPlus: 300, tail: 0 };
     Object.assign(d.parts, {
@@ -49,6 +49,12 @@ describe('live nominal results', () => {
     expect(within(panel).queryByText('Nearest E24')).toBeNull();
     expect(within(panel).queryByText('CMRR')).toBeNull();
     expect(screen.getByRole('img', { name: 'Balance against frequency' })).toBeInTheDocument();
+    expect(screen.getByTestId('large-signal').textContent).toMatch(
+      /Symmetrical swing, plate \/ cathode[\d.]+ V \/ [\d.]+ V peak/,
+    );
+    expect(screen.getByTestId('large-signal').textContent).toMatch(
+      /THD plate \/ cathode[\d.]+ % \/ [\d.]+ %/,
+    );
     // A coupling capacitor into the cathode's load gives that output a low corner.
     const cap = (value: string) => ({ value, tolerance: 10, spread: { kind: 'normal' as const } });
     d.parts.rload2 = { value: '220k', tolerance: 10, spread: { kind: 'normal' } };

@@ -61,6 +61,7 @@ export function LiveResults({ state }: { state: NominalState }) {
         <>
           <SplitLoadResults report={report} />
           <FrequencyPanel design={state.design} metrics={m} />
+          <LargeSignalPanel design={state.design} />
         </>
       )}
       {report.status === 'ok' && state.design.topology !== 'split-load' && (

@@ -14,7 +14,7 @@ function Row({ label, children, warn = false }: { label: ReactNode; children: Re
 /**
  * The nominal results of a split-load (cathodyne) design: one section, the plate and cathode
  * outputs (engine metrics a11/a12, zout1/zout2), and no trim (there is no RL2). The frequency
- * response follows in its own panel.
+ * response and the large signal follow in their own panels.
  */
 export function SplitLoadResults({ report }: { report: NominalReport }) {
   const m = report.metrics;
