@@ -1,4 +1,5 @@
-import { render, screen, within } from '@testing-library/react';
+import { render, screen, waitFor, within } from '@testing-library/react';
+import type { Design } from '@sigmatail/engine';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import { defaultDesign } from './defaultDesign.js';
@@ -73,6 +74,32 @@ describe('live nominal results', () => {
     expect(await screen.findByText('Gain to cathode')).toBeInTheDocument();
   });
 
+  it('saves a split-load design without RL2 and RG2, and a switch to a pair brings them back from RL1 and RG1', async () => {
+    const base = defaultDesign();
+    const { rl2: _rl2, rg2: _rg2, ...parts } = base.parts;
+    const lean = { ...base, topology: 'split-load' as const, supply: { bPlus: 300, tail: 0 }, parts };
+    const saved: Design[] = [];
+    render(
+      <DesignForm
+        initial={lean}
+        readOnly={false}
+        onSave={async (doc) => {
+          saved.push(doc);
+        }}
+      />,
+    );
+    await userEvent.click(screen.getByRole('button', { name: 'Save revision' }));
+    await waitFor(() => expect(saved).toHaveLength(1));
+    expect(saved[0].parts.rl2).toBeUndefined();
+    expect(saved[0].parts.rg2).toBeUndefined();
+    await userEvent.selectOptions(screen.getByLabelText('Topology'), 'Capacitor-coupled (grids leak to J)');
+    expect(await screen.findByLabelText('RL2 value')).toHaveValue(String(base.parts.rl1.value));
+    expect(screen.getByLabelText('RG2 value')).toHaveValue(String(base.parts.rg1.value));
+    await userEvent.click(screen.getByRole('button', { name: 'Save revision' }));
+    await waitFor(() => expect(saved).toHaveLength(2));
+    expect(saved[1].parts.rl2).toEqual(base.parts.rl1);
+  });
+
   it('names the fields to fix when the design does not parse', () => {
     const bad = {
       ...defaultDesign(),
@@ -87,7 +114,7 @@ describe('live nominal results', () => {
     const hot = defaultDesign();
     hot.supply.bPlus = 320;
     hot.parts.rl1.value = '10k';
-    hot.parts.rl2.value = '10k';
+    hot.parts.rl2!.value = '10k';
     hot.parts.rt.value = '1k';
     hot.parts.rk.value = '100R';
     render(<LiveResults state={evaluateNominal(hot)} />);
