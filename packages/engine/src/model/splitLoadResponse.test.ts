@@ -135,11 +135,20 @@ function mathjsResponse(c: Cathodyne, f: number): { h1: MathComplex; h2: MathCom
   cap(G, K, c.cgk);
   cap(G, P, c.cgp);
   cap(P, K, c.cpk);
-  g(K, J, c.rb);
-  g(J, -1, c.rt);
-  g(G, J, c.rg);
-  cap(X, G, c.cin);
-  g(S, X, c.rs);
+  // Rb = 0: the cathode is the junction (J's own row then only tied to ground).
+  const Jn = c.rb > 0 ? J : K;
+  if (c.rb > 0) g(K, J, c.rb);
+  else g(J, -1, 1);
+  g(Jn, -1, c.rt);
+  g(G, Jn, c.rg);
+  if (Number.isFinite(c.cin)) {
+    cap(X, G, c.cin);
+    g(S, X, c.rs);
+  } else {
+    // An ideal input capacitor: Rs straight into the grid (node X then only tied to ground).
+    g(S, G, c.rs);
+    g(X, -1, 1);
+  }
   add(S, I, complex(1, 0));
   add(I, S, complex(1, 0));
   b[I] = complex(1, 0);
@@ -148,12 +157,14 @@ function mathjsResponse(c: Cathodyne, f: number): { h1: MathComplex; h2: MathCom
 }
 
 describe('splitLoadResponseArr', () => {
-  it('matches an independent modified nodal analysis solved by mathjs on 1 000 random circuits and frequencies to 1e-9 (mathjs)', () => {
+  it('matches an independent modified nodal analysis solved by mathjs on 1 000 random circuits and frequencies to 1e-9, Rb = 0 included (mathjs)', () => {
     const r = lcg(17);
     const h = new Float64Array(H_SLOTS);
     let worst = 0;
     for (let t = 0; t < 1000; t++) {
       const c = randomCathodyne(r);
+      if (t % 10 === 0) c.rb = 0;
+      if (t % 7 === 0) c.cin = Infinity;
       const f = logU(r, 1, 1e6);
       expect(splitLoadResponseArr(toArray(c), f, h)).toBe(true);
       const ref = mathjsResponse(c, f);

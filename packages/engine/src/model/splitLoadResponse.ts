@@ -13,7 +13,6 @@ import {
   seriesRcIm,
   seriesRcRe,
 } from './acResponse.js';
-import { solveComplexInPlace } from './complexSolve.js';
 import {
   SS_MU1,
   SS_RG1,
@@ -26,22 +25,6 @@ import {
   SS_RT,
 } from './reducedNodalGains.js';
 
-// Node order of the 4×4 system: plate, cathode, junction J (between Rb and Rt), grid.
-const P = 0;
-const K = 1;
-const J = 2;
-const G = 3;
-const N = 4;
-// Scratch for the solve (matrix and right-hand side as (re, im) pairs): allocation-free per call.
-const A = new Float64Array(2 * N * N);
-const B = new Float64Array(2 * N);
-
-function put(row: number, c: number, re: number, im: number): void {
-  const t = 2 * (row * N + c);
-  A[t] += re;
-  A[t + 1] += im;
-}
-
 /**
  * Frequency response of the split-load (cathodyne) splitter at f hertz, the grid driven by 1 V
  * behind rsource and the input capacitor cin. Complex nodal solve of plate, cathode, junction J and
@@ -53,8 +36,9 @@ function put(row: number, c: number, re: number, im: number): void {
  * cathode (the node itself when there is no load); cstray1 and cstray2 load the plate and cathode.
  * Reads the SS_* slots (section 1, as splitLoadGainsArr) and the AC_* slots cin, cout1, cout2,
  * cstray1, cstray2, cgk1, cgp1, cpk1 (cg2 and section 2 unused); writes the H_* slots of `out`.
- * Solved by Gaussian elimination with partial pivoting (solveComplexInPlace); allocation-free.
- * Returns false if the solve gives a non-finite result (a singular circuit).
+ * The elimination is unrolled (order P K J G, every multiplier at most about one in size, so no
+ * pivoting; structural zeros skipped) and allocation-free. Returns false if the solve gives a
+ * non-finite result (a singular circuit).
  *
  * @example
  * splitLoadResponseArr(v, 20e3, h); // h[H1_RE], h[H1_IM]: plate; h[H2_RE], h[H2_IM]: cathode
@@ -79,47 +63,107 @@ export function splitLoadResponseArr(v: Float64Array, f: number, out: Float64Arr
   const r0 = rs > 0 ? rs : 0;
   const ysr = held ? 0 : cin === Number.POSITIVE_INFINITY ? 1 / rs : seriesRcRe(r0, cin, om);
   const ysi = held ? 0 : seriesRcIm(r0, cin, om);
-  A.fill(0);
-  B.fill(0);
-  // Currents leaving each node. The section: gm·(vG − vK) + (vP − vK)/rp from plate to cathode.
-  put(P, P, 1 / v[SS_RL1] + seriesRcRe(rload1, cout1, om) + ga, seriesRcIm(rload1, cout1, om));
-  put(P, P, 0, om * v[AC_CSTRAY1] + wpk + wgp);
-  put(P, K, -ga - gm, -wpk);
-  put(P, G, gm, -wgp);
-  put(K, P, -ga, -wpk);
-  put(K, K, ga + gm + seriesRcRe(rload2, cout2, om), seriesRcIm(rload2, cout2, om));
-  put(K, K, 0, om * v[AC_CSTRAY2] + wpk + wgk);
-  put(K, G, -gm, -wgk);
+  // Node equations (currents leaving each node), entries r_ROW_COL + j·i_ROW_COL. The section:
+  // gm·(vG − vK) + (vP − vK)/rp from plate to cathode, with Cgk, Cgp and Cpk.
+  const r_P_P = 1 / v[SS_RL1] + seriesRcRe(rload1, cout1, om) + ga;
+  const i_P_P = seriesRcIm(rload1, cout1, om) + om * v[AC_CSTRAY1] + wpk + wgp;
+  const r_P_K = -ga - gm;
+  const i_P_K = -wpk;
+  const r_P_G = gm;
+  const i_P_G = -wgp;
+  const r_K_P = -ga;
+  const i_K_P = -wpk;
+  let r_K_K = ga + gm + seriesRcRe(rload2, cout2, om);
+  let i_K_K = seriesRcIm(rload2, cout2, om) + om * v[AC_CSTRAY2] + wpk + wgk;
+  let r_K_G = -gm;
+  let i_K_G = -wgk;
+  // Rb from K to J; with Rb = 0, J is the cathode: row K takes J's branches (Rt, the grid leak)
+  // and row J says gt·(vJ − vK) = 0 (scaled like the other rows).
+  let r_K_J: number;
+  let r_J_K: number;
+  let r_J_J: number;
+  let r_J_G: number;
   if (rb > 0) {
     const gb = 1 / rb;
-    put(K, K, gb, 0);
-    put(K, J, -gb, 0);
-    put(J, K, -gb, 0);
-    put(J, J, gb + gt + gg, 0);
-    put(J, G, -gg, 0);
+    r_K_K += gb;
+    r_K_J = -gb;
+    r_J_K = -gb;
+    r_J_J = gb + gt + gg;
+    r_J_G = -gg;
   } else {
-    // Rb = 0: J is the cathode. Row K collects J's branches (Rt, the grid leak); row J says vJ = vK.
-    put(K, K, gt + gg, 0);
-    put(K, G, -gg, 0);
-    put(J, J, 1, 0);
-    put(J, K, -1, 0);
+    r_K_K += gt + gg;
+    r_K_G -= gg;
+    r_K_J = 0;
+    r_J_K = -gt;
+    r_J_J = gt;
+    r_J_G = 0;
   }
-  if (held) {
-    put(G, G, 1, 0);
-    B[2 * G] = 1;
-  } else {
-    put(G, P, 0, -wgp);
-    put(G, K, 0, -wgk);
-    put(G, J, -gg, 0);
-    put(G, G, gg + ysr, wgk + wgp + ysi);
-    B[2 * G] = ysr;
-    B[2 * G + 1] = ysi;
-  }
-  if (!solveComplexInPlace(A, B, N)) return false;
-  const pr = B[2 * P];
-  const pi = B[2 * P + 1];
-  const kr = B[2 * K];
-  const ki = B[2 * K + 1];
+  // Grid: the leak to J, Cgk, Cgp and the source; or held at 1 V.
+  const i_G_P = held ? 0 : -wgp;
+  let i_G_K = held ? 0 : -wgk;
+  let r_G_K = 0;
+  let r_G_J = held ? 0 : -gg;
+  let i_G_J = 0;
+  let r_G_G = held ? 1 : gg + ysr;
+  let i_G_G = held ? 0 : wgk + wgp + ysi;
+  const br = held ? 1 : ysr;
+  const bi = held ? 0 : ysi;
+  // Pivot P: eliminate the plate column from rows K and G (row J has no plate term).
+  const dP = r_P_P * r_P_P + i_P_P * i_P_P;
+  const irP = r_P_P / dP;
+  const iiP = -i_P_P / dP;
+  const lrK = r_K_P * irP - i_K_P * iiP;
+  const liK = r_K_P * iiP + i_K_P * irP;
+  r_K_K -= lrK * r_P_K - liK * i_P_K;
+  i_K_K -= lrK * i_P_K + liK * r_P_K;
+  r_K_G -= lrK * r_P_G - liK * i_P_G;
+  i_K_G -= lrK * i_P_G + liK * r_P_G;
+  const lrG = -i_G_P * iiP;
+  const liG = i_G_P * irP;
+  r_G_K -= lrG * r_P_K - liG * i_P_K;
+  i_G_K -= lrG * i_P_K + liG * r_P_K;
+  r_G_G -= lrG * r_P_G - liG * i_P_G;
+  i_G_G -= lrG * i_P_G + liG * r_P_G;
+  // Pivot K: eliminate the cathode column from rows J and G.
+  const dK = r_K_K * r_K_K + i_K_K * i_K_K;
+  const irK = r_K_K / dK;
+  const iiK = -i_K_K / dK;
+  const lrJ = r_J_K * irK;
+  const liJ = r_J_K * iiK;
+  r_J_J -= lrJ * r_K_J;
+  const i_J_J = -liJ * r_K_J;
+  r_J_G -= lrJ * r_K_G - liJ * i_K_G;
+  const i_J_G = -(lrJ * i_K_G + liJ * r_K_G);
+  const lrG2 = r_G_K * irK - i_G_K * iiK;
+  const liG2 = r_G_K * iiK + i_G_K * irK;
+  r_G_J -= lrG2 * r_K_J;
+  i_G_J -= liG2 * r_K_J;
+  r_G_G -= lrG2 * r_K_G - liG2 * i_K_G;
+  i_G_G -= lrG2 * i_K_G + liG2 * r_K_G;
+  // Pivot J: eliminate the junction column from row G.
+  const dJ = r_J_J * r_J_J + i_J_J * i_J_J;
+  const irJ = r_J_J / dJ;
+  const iiJ = -i_J_J / dJ;
+  const lrG3 = r_G_J * irJ - i_G_J * iiJ;
+  const liG3 = r_G_J * iiJ + i_G_J * irJ;
+  r_G_G -= lrG3 * r_J_G - liG3 * i_J_G;
+  i_G_G -= lrG3 * i_J_G + liG3 * r_J_G;
+  // Back substitution: grid, junction, cathode, plate.
+  const dG = r_G_G * r_G_G + i_G_G * i_G_G;
+  const gr = (br * r_G_G + bi * i_G_G) / dG;
+  const gi = (bi * r_G_G - br * i_G_G) / dG;
+  const sjr = -(r_J_G * gr - i_J_G * gi);
+  const sji = -(r_J_G * gi + i_J_G * gr);
+  const jr = sjr * irJ - sji * iiJ;
+  const ji = sjr * iiJ + sji * irJ;
+  const skr = -(r_K_J * jr) - (r_K_G * gr - i_K_G * gi);
+  const ski = -(r_K_J * ji) - (r_K_G * gi + i_K_G * gr);
+  const kr = skr * irK - ski * iiK;
+  const ki = skr * iiK + ski * irK;
+  const spr = -(r_P_K * kr - i_P_K * ki) - (r_P_G * gr - i_P_G * gi);
+  const spi = -(r_P_K * ki + i_P_K * kr) - (r_P_G * gi + i_P_G * gr);
+  const pr = spr * irP - spi * iiP;
+  const pi = spr * iiP + spi * irP;
   if (!(Number.isFinite(pr) && Number.isFinite(pi) && Number.isFinite(kr) && Number.isFinite(ki)))
     return false;
   divideLoad(pr, pi, rload1, cout1, om, out, H1_RE);
