@@ -235,6 +235,15 @@ describe('split-load stage kernel', () => {
     expect(spec.yield).toBeGreaterThan(0.5);
     expect(spec.yield).toBeLessThanOrEqual(1);
     expect(run.metrics['fLow1'].count).toBe(4096);
+    // Influence and worst case reach the frequency columns as for the pair: the coupling
+    // capacitors move the 20 Hz balance, and its worst-case range holds the nominal.
+    const bal20 = 'acBalanceDb@20';
+    const ranked = run.influence!.spearman[bal20];
+    expect(ranked).toBeDefined();
+    const wc = run.worstCase!.metrics[bal20];
+    expect(wc.min).toBeLessThanOrEqual(nom[bal20]);
+    expect(wc.max).toBeGreaterThanOrEqual(nom[bal20]);
+    expect(wc.max! - wc.min!).toBeGreaterThan(0.1);
   });
 });
 
