@@ -1,7 +1,9 @@
 // Frequency-response figures: kernel and full-chunk throughput per core with the DC point and the
 // frequency metrics at 3 spec frequencies per sample, then with the −3 dB points and the balance
-// band added; and the editor's nominal frequency response (121 frequencies). Fixed seeds and sizes;
-// speed is reported here, never asserted in tests. Run: npm run bench:frequency -w @sigmatail/bench
+// band added, for the long-tailed pair and the split-load example; and the editor's nominal
+// frequency response (121 frequencies). Fixed seeds and sizes; speed is reported here, never
+// asserted in tests. Run: npm run bench:frequency -w @sigmatail/bench
+import { readFileSync } from 'node:fs';
 import {
   buildTestDesign,
   createStream,
@@ -10,6 +12,7 @@ import {
   fillUniforms,
   largeSignalReport,
   nominalFrequencyResponse,
+  parseDesign,
   runSetupChunk,
   type RunPlan,
   type RunSetup,
@@ -37,6 +40,15 @@ const design = buildTestDesign({
     { metric: 'acBalanceDb', frequency: 20000, min: -1, max: 1 },
   ],
 });
+// The split-load example: input and output coupling capacitors, strays, balance specs at 20 Hz and
+// 20 kHz; plus a 1 kHz spec so it has 3 spec frequencies like the pair.
+const splitLoadDoc = JSON.parse(
+  readFileSync(new URL('../packages/engine/examples/guitar-12au7-split-load.json', import.meta.url), 'utf8'),
+) as { specs: unknown[] };
+splitLoadDoc.specs.push({ metric: 'acBalanceDb', frequency: 1000, min: -1, max: 1 });
+const parsedSplitLoad = parseDesign(splitLoadDoc);
+if (!parsedSplitLoad.ok) throw new Error(JSON.stringify(parsedSplitLoad.errors));
+const splitLoad = parsedSplitLoad.design;
 const N = DEFAULT_CHUNK_SIZE;
 const quick = process.env.BENCH_QUICK === '1';
 const mega = (n: number, ms: number) => n / ms / 1e3;
@@ -56,6 +68,8 @@ const cases: [string, RunSetup, string][] = [
   ['DC + 3 spec frequencies + −3 dB points', designSetup(design, { band: false }), ''],
   ['DC + 3 spec frequencies + band (13 frequencies)', designSetup(design, { corners: false }), ''],
   ['full (default for this design)', designSetup(design), ''],
+  ['split-load: DC + 3 spec frequencies', designSetup(splitLoad, { corners: false, band: false }), ''],
+  ['split-load: full (spec frequencies, −3 dB points, band)', designSetup(splitLoad), ''],
 ];
 const rows: Record<string, string | number>[] = [];
 for (const [name, setup, target] of cases) {
@@ -78,6 +92,13 @@ for (const [name, setup, target] of cases) {
 }
 console.log('\nFrequency response throughput per core (one thread; chunk = 65 536 samples, seed "bench")');
 console.table(rows);
+const kernelRate = (name: string) => Number(rows.find((r) => r.case === name)?.['kernel M/s (cpu)']);
+console.log(
+  `split-load full / pair full, kernel M samples/s (same process): ${(
+    kernelRate('split-load: full (spec frequencies, −3 dB points, band)') /
+    kernelRate('full (default for this design)')
+  ).toFixed(2)}`,
+);
 
 // The editor's nominal view: bias point + 121 frequencies, as the web app runs it per keystroke.
 const nominal = timeBest(
@@ -98,3 +119,10 @@ const large = timeBest(
   quick ? 3 : 5,
 );
 console.log(`largeSignalReport (nominal): ${(large.cpu / 10).toFixed(1)} ms per call (cpu)`);
+const largeSplit = timeBest(
+  () => {
+    for (let i = 0; i < 10; i++) largeSignalReport(splitLoad);
+  },
+  quick ? 3 : 5,
+);
+console.log(`largeSignalReport (split-load, nominal): ${(largeSplit.cpu / 10).toFixed(1)} ms per call (cpu)`);

@@ -26,6 +26,10 @@ describe('engineer chooses between a long-tailed pair and a split-load splitter'
     expect(await page.getByLabel('Topology').inputValue()).toBe('split-load');
     await page.getByText('Gain to cathode').waitFor();
     expect(await page.getByTestId('balance').textContent()).toMatch(/dB$/);
+    // Its frequency response and large signal, as for a pair: plate and cathode.
+    await page.getByRole('img', { name: 'Balance against frequency' }).waitFor();
+    expect(await page.getByTestId('corners').textContent()).toMatch(/out 2 \d[\d.]* Hz … [\d.]+ [kM]Hz/);
+    expect(await page.getByTestId('large-signal').textContent()).toMatch(/THD plate \/ cathode[\d.]+ %/);
     await screenshot(page, '30-split-load-editor');
 
     await runDesign(page, /Guitar 12AU7 split-load/, 'e2e-split');
@@ -47,6 +51,12 @@ describe('engineer chooses between a long-tailed pair and a split-load splitter'
     const text = (await table.textContent()) ?? '';
     expect(text).toMatch(/Long-tailed pair, capacitor-coupled/);
     expect(text).not.toMatch(/no finished run/);
+    // Swing of each output and distortion at one stated output level, for both designs.
+    expect(text).toMatch(
+      /Symmetrical swing, output 1 \(peak, before grid current or cut-off\)[\d.]+ V[\d.]+ V/,
+    );
+    expect(text).toMatch(/THD at 20 V peak on output 1: output 1 \/ output 2[\d.]+ % \/ [\d.]+ %/);
+    expect(text.match(/peak drive\)/g)).toHaveLength(2);
     await screenshot(page, '31-choose-splitter');
     await page.context().close();
   });

@@ -51,6 +51,22 @@ describe('sigmatail nominal', () => {
     expect(r.largeSignal.swing1).toBeGreaterThan(0);
   });
 
+  it('prints the split-load example’s frequency and large-signal figures: plate and cathode', async () => {
+    const io = capture();
+    const splitLoad = fileURLToPath(new URL('../../examples/guitar-12au7-split-load.json', import.meta.url));
+    expect(await main(['nominal', splitLoad])).toBe(0);
+    const r = JSON.parse(io.out.join(''));
+    expect(r.a21).toBeNull();
+    expect(r.trim).toBeNull();
+    for (const k of ['fLow1', 'fLow2', 'fHigh1', 'fHigh2', 'acBalanceDb@20', 'acPhaseDeg@20000'])
+      expect(r[k]).toBeTypeOf('number');
+    expect(r.fHigh2).toBeGreaterThan(r.fLow2);
+    expect(r.largeSignal.status).toBe('ok');
+    expect(r.largeSignal.limitPositive).toBe('grid-current-1');
+    expect(r.largeSignal.swing2).toBeGreaterThan(0);
+    expect(r.largeSignal.out2.thdPercent).toBeGreaterThan(0);
+  });
+
   it.each([
     ['a missing file', () => '/nonexistent/design.json', /cannot read/],
     ['bad JSON', () => file('{ "format": '), /not valid JSON/],

@@ -39,7 +39,8 @@ const jsonSafe = (v: unknown): unknown =>
 /**
  * `sigmatail nominal FILE.json`: prints one JSON object (SI units) with the gains, impedances,
  * balance, DC point, frequency metrics, warnings, trim and the large-signal figures (drive and
- * swing limits, H2/H3/THD of each plate at half the symmetrical drive limit). Exit 0 ok, 1 no valid bias point (diagnosis printed),
+ * swing limits, H2/H3/THD of each output at half the symmetrical drive limit; plate and cathode
+ * for a split-load design). Exit 0 ok, 1 no valid bias point (diagnosis printed),
  * 2 bad input (one line on stderr).
  */
 export async function nominalCommand(args: string[]): Promise<number> {
@@ -68,9 +69,7 @@ export async function nominalCommand(args: string[]): Promise<number> {
     warnings: r.warnings.map((w) => w.message),
     ratings: r.ratings,
     trim: trim ?? null,
-    // Large signal models the long-tailed pair only; none for split-load.
-    largeSignal:
-      r.status === 'ok' && design.topology !== 'split-load' ? jsonSafe(largeSignalReport(design)) : null,
+    largeSignal: r.status === 'ok' ? jsonSafe(largeSignalReport(design)) : null,
   };
   process.stdout.write(`${JSON.stringify(report, null, 2)}\n`);
   return r.status === 'ok' ? 0 : 1;

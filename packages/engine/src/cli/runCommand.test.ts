@@ -71,4 +71,16 @@ describe('sigmatail run', () => {
     expect(await runCommand([example, '--samples', 'many'])).toBe(2);
     expect(err.join('')).toBe('sigmatail run: --samples must be an integer 1..100000000\n');
   });
+
+  it('computes the per-sample large-signal figures of a split-load design too', async () => {
+    const out: string[] = [];
+    vi.spyOn(process.stdout, 'write').mockImplementation((s) => (out.push(String(s)), true));
+    const splitLoad = fileURLToPath(new URL('../../examples/guitar-12au7-split-load.json', import.meta.url));
+    expect(await runCommand([splitLoad, '--samples', '40', '--large-signal'])).toBe(0);
+    const ls = JSON.parse(out.join('')).largeSignal;
+    expect(ls.subsample).toBe(32);
+    expect(ls.swing2.count).toBe(32);
+    expect(ls.thd2Percent.mean).toBeGreaterThan(0);
+    expect(ls.driveSymmetric.min).toBeGreaterThan(0);
+  });
 });

@@ -3,6 +3,7 @@ import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { parseDesign } from './parseDesign.js';
 import { designJsonSchema } from './designJsonSchema.js';
+import { createStagePoint } from '../model/stagePoint.js';
 
 const root = fileURLToPath(new URL('../../', import.meta.url));
 const examples = readdirSync(`${root}examples`).filter((f) => f.endsWith('.json'));
@@ -50,6 +51,7 @@ describe('parseDesign', () => {
     ['NaN supply', (d: Doc) => (d.supply.bPlus = Number.NaN), 'supply.bPlus'],
     ['infinite value', (d: Doc) => (d.parts.rk.value = Infinity), 'parts.rk.value'],
     ['missing part', (d: Doc) => delete d.parts.rl2, 'parts.rl2'],
+    ['a pair without RG2', (d: Doc) => delete d.parts.rg2, 'parts.rg2'],
     ['missing specs', (d: Doc) => delete d.specs, 'specs'],
     ['spec without limits', (d: Doc) => (d.specs = [{ metric: 'balanceDb' }]), 'specs.0.min'],
     ['unknown metric', (d: Doc) => (d.specs = [{ metric: 'loudness', max: 1 }]), 'specs.0.metric'],
@@ -76,6 +78,27 @@ describe('parseDesign', () => {
     const errors = errorsOf(mutate);
     expect(errors.map((e) => e.path)).toContain(path);
     for (const e of errors) expect(e.message.length).toBeGreaterThan(0);
+  });
+
+  it('a split-load design may leave out RL2 and RG2; an older one that carries them reads as before', () => {
+    const lean = load('guitar-12au7-split-load.json');
+    expect(lean.parts.rl2).toBeUndefined();
+    const r = parseDesign(lean);
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    expect(r.design.parts.rl2).toBeUndefined();
+    expect(r.design.parts.rg2).toBeUndefined();
+    // As stored before they became optional: the unused parts present, same version.
+    const part = (value: string) => ({ value, tolerance: 5, spread: { kind: 'normal' } });
+    const older = { ...lean, parts: { ...lean.parts, rl2: part('22k'), rg2: part('1M') } };
+    const o = parseDesign(older);
+    expect(o.ok).toBe(true);
+    if (!o.ok) return;
+    expect(o.design.version).toBe(2);
+    expect(o.design.parts.rl2?.value).toBe(22e3);
+    const now = createStagePoint(r.design)();
+    const then = createStagePoint(o.design)();
+    for (const id of Object.keys(now)) expect(then[id]).toBe(now[id]);
   });
 
   it.each([null, undefined, 42, 'text', [], {}])('never throws on %j', (input) => {

@@ -169,7 +169,7 @@ export const designSchema = z
      * 'split-load' (format 2, additive): the cathodyne, one section (section 1) with plate load
      * rl1, bias resistor rk from cathode to J, cathode load rt from J to the tail supply, grid
      * leak rg1 to J, outputs at the plate (rload1) and the cathode (rload2); rl2 and rg2 are not
-     * used by it, capacitors are accepted but not analysed, drive is ignored.
+     * used by it (optional for it), nor are cg2 and drive.
      */
     topology: z.enum(['cap-coupled', 'direct-coupled', 'split-load']),
     supply: z.object({
@@ -190,11 +190,13 @@ export const designSchema = z
     tube: z.object({ type: z.enum(TUBE_TYPES), spread: tubeSpreadSchema }),
     parts: z.object({
       rl1: partSchema,
-      rl2: partSchema,
+      /** Plate load of section 2; required for a long-tailed pair, not used by 'split-load'. */
+      rl2: partSchema.optional(),
       rk: partSchema,
       rt: partSchema,
       rg1: partSchema,
-      rg2: partSchema,
+      /** Grid leak of section 2; required for a long-tailed pair, not used by 'split-load'. */
+      rg2: partSchema.optional(),
       rload1: partSchema.optional(),
       rload2: partSchema.optional(),
       rsource: partSchema.optional(),
@@ -214,6 +216,16 @@ export const designSchema = z
   .refine((d) => d.topology !== 'direct-coupled' || d.drive !== undefined, {
     message: 'a direct-coupled design needs drive (grid1Dc and grid2)',
     path: ['drive'],
+  })
+  // Section 2's plate load and grid leak belong to the long-tailed pair only (format 2: a
+  // split-load document may leave them out; older documents that carry them read as before).
+  .refine((d) => d.topology === 'split-load' || d.parts.rl2 !== undefined, {
+    message: 'a long-tailed pair needs RL2 (plate load of section 2)',
+    path: ['parts', 'rl2'],
+  })
+  .refine((d) => d.topology === 'split-load' || d.parts.rg2 !== undefined, {
+    message: 'a long-tailed pair needs RG2 (grid leak of section 2)',
+    path: ['parts', 'rg2'],
   });
 
 /**

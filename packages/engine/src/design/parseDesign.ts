@@ -1,6 +1,7 @@
 import {
   CAPACITOR_PARTS,
   designSchema,
+  RESISTOR_PARTS,
   type Design,
   type Part,
   type ResolvedDesign,
@@ -49,17 +50,13 @@ function resolvePart(part: Part, kind: ValueKind = 'resistance'): ResolvedPart {
 
 function resolveDesign(d: Design): ResolvedDesign {
   const p = d.parts;
-  const parts: ResolvedDesign['parts'] = {
-    rl1: resolvePart(p.rl1),
-    rl2: resolvePart(p.rl2),
-    rk: resolvePart(p.rk),
-    rt: resolvePart(p.rt),
-    rg1: resolvePart(p.rg1),
-    rg2: resolvePart(p.rg2),
-  };
-  if (p.rload1) parts.rload1 = resolvePart(p.rload1);
-  if (p.rload2) parts.rload2 = resolvePart(p.rload2);
-  if (p.rsource) parts.rsource = resolvePart(p.rsource);
+  // Resistors in document order (RL2 and RG2 absent only in a split-load design): the order of
+  // the parts fixes which random stream each draws from, so it must not move.
+  const parts = {} as ResolvedDesign['parts'];
+  for (const name of RESISTOR_PARTS) {
+    const r = p[name];
+    if (r) parts[name] = resolvePart(r);
+  }
   for (const name of CAPACITOR_PARTS) {
     const c = p[name];
     if (c) parts[name] = resolvePart(c, 'capacitance');

@@ -63,16 +63,43 @@ export interface AcCircuit extends SmallSignalCircuit {
   cpk2: number;
 }
 
-/** Real part of 1/(R + 1/(jωC)) = jωC/(1 + jωCR); C = Infinity gives 1/R, R = Infinity gives 0. */
-function seriesRcRe(r: number, c: number, w: number): number {
+/**
+ * A frequency-response solver over the circuit array: `v` (SS_*, AC_* slots), f in Hz, the
+ * response into `out` (H_* slots); false when the solve fails. The corner search takes one, so
+ * every topology shares it.
+ */
+export type AcSolver = (v: Float64Array, f: number, out: Float64Array) => boolean;
+
+/**
+ * The long-tailed pair's {@link AcSolver} for one form of the stage (see acResponseArr).
+ *
+ * @example
+ * cornerFrequencyArr(pairAcSolver(true, false), v, 1, gain, 'high', 1e3, 0, h);
+ */
+export function pairAcSolver(capCoupled: boolean, leakToGrid1: boolean): AcSolver {
+  return (v, f, out) => acResponseArr(capCoupled, leakToGrid1, v, f, out);
+}
+
+/**
+ * Real part of 1/(R + 1/(jωC)) = jωC/(1 + jωCR); C = Infinity gives 1/R, R = Infinity gives 0.
+ *
+ * @example
+ * seriesRcRe(1e3, Infinity, 1); // 1e-3 (S)
+ */
+export function seriesRcRe(r: number, c: number, w: number): number {
   if (r === Number.POSITIVE_INFINITY) return 0;
   if (c === Number.POSITIVE_INFINITY) return 1 / r;
   const x = w * c * r;
   return (x * w * c) / (1 + x * x);
 }
 
-/** Imaginary part of jωC/(1 + jωCR). */
-function seriesRcIm(r: number, c: number, w: number): number {
+/**
+ * Imaginary part of jωC/(1 + jωCR) (S).
+ *
+ * @example
+ * seriesRcIm(1e3, 1e-6, 1e3); // ≈ 0.5e-3 (S)
+ */
+export function seriesRcIm(r: number, c: number, w: number): number {
   if (r === Number.POSITIVE_INFINITY || c === Number.POSITIVE_INFINITY) return 0;
   const x = w * c * r;
   return (w * c) / (1 + x * x);
@@ -320,8 +347,14 @@ export function acResponseArr(
   return true;
 }
 
-/** out[at], out[at+1] = plate voltage × jωCR/(1 + jωCR): the share across the load behind its capacitor. */
-function divideLoad(
+/**
+ * out[at], out[at+1] = node voltage × jωCR/(1 + jωCR): the share across the load behind its
+ * coupling capacitor (the node voltage itself when there is no load or the capacitor is ideal).
+ *
+ * @example
+ * divideLoad(1, 0, 1e5, 1e-7, 100, h, H1_RE); // h[0] = 0.5, h[1] = 0.5 (ωCR = 1)
+ */
+export function divideLoad(
   pr: number,
   pi: number,
   r: number,

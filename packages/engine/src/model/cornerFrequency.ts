@@ -1,4 +1,4 @@
-import { acResponseArr, H1_IM, H1_RE, H2_IM, H2_RE } from './acResponse.js';
+import { H1_IM, H1_RE, H2_IM, H2_RE, type AcSolver } from './acResponse.js';
 
 /** Lowest and highest frequencies (Hz) the corner search looks at; beyond them it gives 0 / Infinity. */
 export const CORNER_F_MIN = 1e-3;
@@ -26,14 +26,14 @@ const SECANT_TOL = 1e-5;
  * the band, or a nearby corner) with growing steps until the response crosses −3 dB, then
  * Illinois regula falsi on log f. Returns 0 (low side) or Infinity (high side) when the response
  * stays within 3 dB down to CORNER_F_MIN or up to CORNER_F_MAX, NaN if a solve fails.
- * Allocation-free (`h` as for acResponseArr).
+ * `solve` is the topology's response (pairAcSolver, splitLoadResponseArr). Allocation-free (`h` as
+ * for acResponseArr).
  *
  * @example
- * cornerFrequencyArr(true, false, v, 1, Math.abs(a11), 'high', 1000, 0, h); // e.g. 48e3 (Hz)
+ * cornerFrequencyArr(pairAcSolver(true, false), v, 1, Math.abs(a11), 'high', 1000, 0, h); // e.g. 48e3 (Hz)
  */
 export function cornerFrequencyArr(
-  capCoupled: boolean,
-  leakToGrid1: boolean,
+  solve: AcSolver,
   v: Float64Array,
   which: 1 | 2,
   ref: number,
@@ -46,10 +46,10 @@ export function cornerFrequencyArr(
   const xs = Math.log10(start);
   if (slope !== 0 && Number.isFinite(slope)) {
     let x0 = xs;
-    let g0 = g(capCoupled, leakToGrid1, v, which, lnRef2, x0, h);
+    let g0 = g(solve, v, which, lnRef2, x0, h);
     let x1 = x0 - g0 / slope;
     for (let it = 0; it < SECANT_STEPS && Math.abs(x1 - xs) < SECANT_REACH; it++) {
-      const g1 = g(capCoupled, leakToGrid1, v, which, lnRef2, x1, h);
+      const g1 = g(solve, v, which, lnRef2, x1, h);
       if (Number.isNaN(g1) || g1 === g0) break;
       const x2 = x1 - (g1 * (x1 - x0)) / (g1 - g0);
       if (Math.abs(x2 - x1) < SECANT_TOL) return Math.pow(10, x2);
@@ -58,7 +58,7 @@ export function cornerFrequencyArr(
       x1 = x2;
     }
   }
-  return bracketedCorner(capCoupled, leakToGrid1, v, which, lnRef2, side, xs, h);
+  return bracketedCorner(solve, v, which, lnRef2, side, xs, h);
 }
 
 /**
@@ -66,11 +66,10 @@ export function cornerFrequencyArr(
  * of {@link cornerFrequencyArr}.
  *
  * @example
- * cornerSlopeArr(true, false, v, 1, 48e3, h); // ≈ −4.6 beyond a single pole
+ * cornerSlopeArr(pairAcSolver(true, false), v, 1, 48e3, h); // ≈ −4.6 beyond a single pole
  */
 export function cornerSlopeArr(
-  capCoupled: boolean,
-  leakToGrid1: boolean,
+  solve: AcSolver,
   v: Float64Array,
   which: 1 | 2,
   f: number,
@@ -78,14 +77,13 @@ export function cornerSlopeArr(
 ): number {
   const x = Math.log10(f);
   const d = 1e-4;
-  const up = g(capCoupled, leakToGrid1, v, which, 0, x + d, h);
-  const down = g(capCoupled, leakToGrid1, v, which, 0, x - d, h);
+  const up = g(solve, v, which, 0, x + d, h);
+  const down = g(solve, v, which, 0, x - d, h);
   return (up - down) / (2 * d);
 }
 
 function bracketedCorner(
-  capCoupled: boolean,
-  leakToGrid1: boolean,
+  solve: AcSolver,
   v: Float64Array,
   which: 1 | 2,
   lnRef2: number,
@@ -95,7 +93,7 @@ function bracketedCorner(
 ): number {
   const dir = side === 'high' ? 1 : -1;
   let x0 = xs;
-  let g0 = g(capCoupled, leakToGrid1, v, which, lnRef2, x0, h);
+  let g0 = g(solve, v, which, lnRef2, x0, h);
   if (Number.isNaN(g0)) return Number.NaN;
   // Walk: outwards while inside the band, inwards while outside, until the sign changes.
   let d = g0 >= 0 ? dir * 0.3 : -dir * 0.3;
@@ -105,7 +103,7 @@ function bracketedCorner(
     x1 = x0 + d;
     if (x1 > X_MAX) return side === 'high' ? Number.POSITIVE_INFINITY : Number.NaN;
     if (x1 < X_MIN) return side === 'low' ? 0 : Number.NaN;
-    g1 = g(capCoupled, leakToGrid1, v, which, lnRef2, x1, h);
+    g1 = g(solve, v, which, lnRef2, x1, h);
     if (Number.isNaN(g1)) return Number.NaN;
     if (g1 >= 0 !== g0 >= 0) break;
     x0 = x1;
@@ -116,7 +114,7 @@ function bracketedCorner(
   // same side as the last one, so both ends of the bracket keep moving.
   for (let it = 0; it < 60 && Math.abs(x1 - x0) > X_TOL; it++) {
     const x = x1 - (g1 * (x1 - x0)) / (g1 - g0);
-    const gx = g(capCoupled, leakToGrid1, v, which, lnRef2, x, h);
+    const gx = g(solve, v, which, lnRef2, x, h);
     if (Number.isNaN(gx)) return Number.NaN;
     if (gx === 0) return Math.pow(10, x);
     if (gx >= 0 !== g1 >= 0) {
@@ -131,16 +129,44 @@ function bracketedCorner(
 
 /** ln(|H(10^x)|² / |ref|²) − ln ½ for output `which`: positive inside the band, negative outside. */
 function g(
-  capCoupled: boolean,
-  leakToGrid1: boolean,
+  solve: AcSolver,
   v: Float64Array,
   which: 1 | 2,
   lnRef2: number,
   x: number,
   h: Float64Array,
 ): number {
-  if (!acResponseArr(capCoupled, leakToGrid1, v, Math.pow(10, x), h)) return Number.NaN;
+  if (!solve(v, Math.pow(10, x), h)) return Number.NaN;
   const re = which === 1 ? h[H1_RE] : h[H2_RE];
   const im = which === 1 ? h[H1_IM] : h[H2_IM];
   return Math.log(re * re + im * im) - lnRef2 - HALF;
+}
+
+/**
+ * The per-sample corner searches' start points: the nominal −3 dB points [fLow1, fLow2, fHigh1,
+ * fHigh2] (Hz) by a bracketed search from 1 kHz, then the response slope at each (the secant's
+ * first step; 0 = none). A corner that does not exist at nominal is replaced by 1 kHz with slope
+ * 0 (a start point must be finite). `v` holds the nominal circuit; ref1, ref2 the midband gains.
+ *
+ * @example
+ * nominalCornerStarts(splitLoadResponseArr, v, 0.9, 0.9, h); // Float64Array(8)
+ */
+export function nominalCornerStarts(
+  solve: AcSolver,
+  v: Float64Array,
+  ref1: number,
+  ref2: number,
+  h: Float64Array,
+): Float64Array {
+  const out = Float64Array.of(1e3, 1e3, 1e3, 1e3, 0, 0, 0, 0);
+  for (let i = 0; i < 4; i++) {
+    const which = i % 2 === 0 ? 1 : 2;
+    const ref = which === 1 ? ref1 : ref2;
+    const f = cornerFrequencyArr(solve, v, which, ref, i < 2 ? 'low' : 'high', 1e3, 0, h);
+    if (Number.isFinite(f) && f > 0) {
+      out[i] = f;
+      out[i + 4] = cornerSlopeArr(solve, v, which, f, h);
+    }
+  }
+  return out;
 }

@@ -22,7 +22,7 @@ function bisectionPair(vin: number, rest: { va1: number; va2: number; vj: number
   const d = design();
   const tube = TUBE_CATALOG[d.tube.type].model;
   const p = d.parts;
-  const [rl1, rl2, rk, rt, rg1, rg2] = [p.rl1, p.rl2, p.rk, p.rt, p.rg1, p.rg2].map((x) => x.value);
+  const [rl1, rl2, rk, rt, rg1, rg2] = [p.rl1, p.rl2!, p.rk, p.rt, p.rg1, p.rg2!].map((x) => x.value);
   const [rload1, rload2] = [p.rload1!.value, p.rload2!.value];
   const bPlus = d.supply.bPlus;
   const bisect = (fn: (v: number) => number, lo: number, hi: number) => {

@@ -1,6 +1,19 @@
 import type { ResolvedDesign } from '../design/designSchema.js';
 import { TUBE_CATALOG } from '../tubes/tubeCatalog.js';
-import { acResponse, type AcCircuit } from './acResponse.js';
+import {
+  AC_SLOTS,
+  acResponse,
+  H1_IM,
+  H1_RE,
+  H2_IM,
+  H2_RE,
+  H_SLOTS,
+  writeAcCircuit,
+  type AcCircuit,
+  type Complex,
+} from './acResponse.js';
+import { solveSplitLoadBiasInto } from './splitLoadBias.js';
+import { splitLoadResponseArr } from './splitLoadResponse.js';
 import { createStageContext, nominalStageInputs, solveStageBias } from './stageEvaluator.js';
 
 /**
@@ -31,8 +44,9 @@ export interface FrequencyResponse {
 /**
  * The nominal frequency response for the design editor's plot: the bias point at nominal, gm and
  * rp from the triode model there, then the complex nodal solve (capacitors, tube interelectrode
- * capacitances) at each frequency. Pure and synchronous; a few hundred microseconds for the
- * default 121 frequencies.
+ * capacitances) at each frequency. A 'split-load' design: its one-equation bias and its own solve
+ * (splitLoadResponseArr), output 1 the plate, output 2 the cathode. Pure and synchronous; a few
+ * hundred microseconds for the default 121 frequencies.
  *
  * @example
  * nominalFrequencyResponse(design).balanceDb[60]; // balance at 1 kHz (dB)
@@ -44,7 +58,11 @@ export function nominalFrequencyResponse(
   const empty = { frequencies: [...frequencies], gain1Db: [], gain2Db: [], balanceDb: [], phaseDeg: [] };
   const ctx = createStageContext(design);
   const x = nominalStageInputs(design);
-  if (solveStageBias(ctx, x, false) !== 'ok') return { status: 'no-bias', ...empty };
+  const splitLoad = design.topology === 'split-load';
+  const status = splitLoad
+    ? solveSplitLoadBiasInto({ ...ctx.bias, ...x }, ctx.bp, false)
+    : solveStageBias(ctx, x, false);
+  if (status !== 'ok') return { status: 'no-bias', ...empty };
   const bp = ctx.bp;
   const caps = TUBE_CATALOG[design.tube.type].capacitance;
   const circuit: AcCircuit = {
@@ -56,8 +74,16 @@ export function nominalFrequencyResponse(
     ...{ cgk1: caps.cin, cgk2: caps.cin, cgp1: caps.cgp, cgp2: caps.cgp, cpk1: caps.cout, cpk2: caps.cout },
   };
   const out: FrequencyResponse = { status: 'ok', ...empty };
+  const v = new Float64Array(AC_SLOTS);
+  const h = new Float64Array(H_SLOTS);
+  writeAcCircuit(circuit, v);
+  const respond = (f: number): { h1: Complex; h2: Complex } => {
+    if (!splitLoad) return acResponse(circuit, f);
+    splitLoadResponseArr(v, f, h);
+    return { h1: { re: h[H1_RE], im: h[H1_IM] }, h2: { re: h[H2_RE], im: h[H2_IM] } };
+  };
   for (const f of frequencies) {
-    const { h1, h2 } = acResponse(circuit, f);
+    const { h1, h2 } = respond(f);
     const m1 = h1.re * h1.re + h1.im * h1.im;
     const m2 = h2.re * h2.re + h2.im * h2.im;
     out.gain1Db.push(10 * Math.log10(m1));

@@ -26,7 +26,7 @@ describe('nominalResults', () => {
       tube: { type: '12AU7', spread: { perveanceSd: 10, muSd: 3, sectionCorrelation: 0 } },
     });
     hot.supply = { bPlus: 400, tail: 0, heater: -200 };
-    hot.parts.rl1.value = hot.parts.rl2.value = 10e3;
+    hot.parts.rl1.value = hot.parts.rl2!.value = 10e3;
     hot.parts.rk.value = 150;
     hot.parts.rt.value = 1e3;
     const codes = nominalResults(hot).warnings.map((w) => w.code);

@@ -1,6 +1,21 @@
 import type { ResolvedDesign } from '../design/designSchema.js';
 import { createBiasPoint, type BiasCircuit } from './biasSolver.js';
 import { METRIC_IDS, type MetricId } from './metrics.js';
+import { writeAcColumns, writeNominalCapacitors, type acColumns } from './acColumns.js';
+import {
+  AC_CGK1,
+  AC_CGP1,
+  AC_CIN,
+  AC_COUT1,
+  AC_COUT2,
+  AC_CPK1,
+  AC_CSTRAY1,
+  AC_CSTRAY2,
+  AC_SLOTS,
+  H_SLOTS,
+} from './acResponse.js';
+import { cornerFrequencyArr, nominalCornerStarts } from './cornerFrequency.js';
+import { splitLoadResponseArr } from './splitLoadResponse.js';
 import {
   G_A11,
   G_A12,
@@ -17,7 +32,6 @@ import {
   SS_RP1,
   SS_RSOURCE,
   SS_RT,
-  SS_SLOTS,
 } from './reducedNodalGains.js';
 import { solveSplitLoadBiasInto } from './splitLoadBias.js';
 import { splitLoadGainsArr } from './splitLoadGains.js';
@@ -55,20 +69,24 @@ export const SPLIT_LOAD_NAN_METRICS: readonly MetricId[] = [
  * zout1 = plate, zout2 = cathode, zin = bootstrapped grid leak, ia1/va1/vk/vgk1/pd1/gm1/rp1/mu1 of
  * the one section, vhk = Vk − heater; {@link SPLIT_LOAD_NAN_METRICS} are NaN. Per sample the DC
  * point is solved with the Koren model (solveSplitLoadBiasInto, warm-started from nominal), gm
- * and rp taken there, and the small signal solved in closed form (splitLoadGainsArr). No frequency
- * analysis: the corner and frequency columns in `metrics` beyond METRIC_IDS are written NaN.
+ * and rp taken there, and the small signal solved in closed form (splitLoadGainsArr). Then the
+ * frequency response (splitLoadResponseArr: cin, cout1/cout2 into the loads, the strays, the
+ * section's Cgk, Cgp, Cpk from the catalog): the frequency columns `ac.columns` (spec frequencies
+ * and the band) and, with `corners`, the −3 dB points after METRIC_IDS by the same warm-started
+ * secant as the long-tailed pair (cornerFrequencyArr from the nominal corners).
  * With `dcPerSample: false` the bias is solved once at nominal and mu/rp scaled per sample as the
  * long-tailed-pair kernel does.
  *
  * @example
- * const k = createSplitLoadKernel(design, METRIC_IDS, true);
+ * const k = createSplitLoadKernel(design, INPUTS, METRIC_IDS, { dcPerSample: true, corners: false, ac });
  */
 export function createSplitLoadKernel(
   design: ResolvedDesign,
   inputs: readonly InputId[],
   metrics: readonly string[],
-  dcPerSample: boolean,
+  options: { dcPerSample: boolean; corners: boolean; ac: ReturnType<typeof acColumns> },
 ): StageKernel {
+  const { dcPerSample, corners, ac } = options;
   const nominal = nominalStageInputs(design);
   const nominalArray = Float64Array.from(inputs.map((id) => nominal[id]));
   const tube = TUBE_CATALOG[design.tube.type];
@@ -82,8 +100,24 @@ export function createSplitLoadKernel(
   const nb = { ...bp };
   const nominalValid = nb.status === 'ok';
   const heater = design.supply.heater ?? 0;
-  const v = new Float64Array(SS_SLOTS);
+  const v = new Float64Array(AC_SLOTS);
   const g = new Float64Array(G_SLOTS);
+  const h = new Float64Array(H_SLOTS);
+  // The section's interelectrode capacitances (catalog; no spread).
+  v[AC_CGK1] = tube.capacitance.cin;
+  v[AC_CGP1] = tube.capacitance.cgp;
+  v[AC_CPK1] = tube.capacitance.cout;
+  const nomCorners = nominalCorners();
+  const lowCorners =
+    corners &&
+    !(
+      nominal.cin === Number.POSITIVE_INFINITY &&
+      nominal.cout1 === Number.POSITIVE_INFINITY &&
+      nominal.cout2 === Number.POSITIVE_INFINITY
+    );
+  const acFreq = ac.frequencies;
+  const acCol = ac.columns;
+  const corner0 = METRIC_IDS.length;
   const at = (id: InputId) => inputs.indexOf(id);
   const idx = {
     rl1: at('rl1'),
@@ -95,9 +129,38 @@ export function createSplitLoadKernel(
     rsource: at('rsource'),
     mu1: at('mu1'),
     perv1: at('perv1'),
+    cin: at('cin'),
+    cout1: at('cout1'),
+    cout2: at('cout2'),
+    cstray1: at('cstray1'),
+    cstray2: at('cstray2'),
   };
   const nanCols = SPLIT_LOAD_NAN_METRICS.map(col);
-  const extraCols = metrics.map((_, m) => m).filter((m) => m >= METRIC_IDS.length);
+
+  /** Nominal −3 dB points and slopes, the per-sample searches' start (see nominalCornerStarts). */
+  function nominalCorners(): Float64Array {
+    if (!corners || !nominalValid) return Float64Array.of(1e3, 1e3, 1e3, 1e3, 0, 0, 0, 0);
+    writeSmallSignal(nb.gm1 / nb.ga1, 1 / nb.ga1, nominal);
+    writeNominalCapacitors(nominal, v);
+    splitLoadGainsArr(v, g);
+    return nominalCornerStarts(splitLoadResponseArr, v, Math.abs(g[G_A11]), Math.abs(g[G_A12]), h);
+  }
+
+  function writeSmallSignal(
+    mu: number,
+    rp: number,
+    r: { rl1: number; rk: number; rt: number; rg1: number; rload1: number; rload2: number; rsource: number },
+  ): void {
+    v[SS_MU1] = mu;
+    v[SS_RP1] = rp;
+    v[SS_RL1] = r.rl1;
+    v[SS_RK] = r.rk;
+    v[SS_RT] = r.rt;
+    v[SS_RG1] = r.rg1;
+    v[SS_RLOAD1] = r.rload1;
+    v[SS_RLOAD2] = r.rload2;
+    v[SS_RSOURCE] = r.rsource;
+  }
 
   function evaluate(x: readonly Float64Array[], n: number, out: readonly Float64Array[]): void {
     const o = (id: MetricId) => out[col(id)];
@@ -109,7 +172,6 @@ export function createSplitLoadKernel(
     ).map(o);
     for (let s = 0; s < n; s++) {
       for (const c of nanCols) out[c][s] = Number.NaN;
-      for (const c of extraCols) out[c][s] = Number.NaN;
       const rl1 = x[idx.rl1][s];
       const rk = x[idx.rk][s];
       const rt = x[idx.rt][s];
@@ -119,7 +181,15 @@ export function createSplitLoadKernel(
       const rsource = x[idx.rsource][s];
       const xmu = x[idx.mu1][s];
       const perv = x[idx.perv1][s];
-      if (!(rg1 > 0 && rload1 > 0 && rload2 > 0 && rsource >= 0)) {
+      const cin = x[idx.cin][s];
+      const cout1 = x[idx.cout1][s];
+      const cout2 = x[idx.cout2][s];
+      const cstray1 = x[idx.cstray1][s];
+      const cstray2 = x[idx.cstray2][s];
+      if (
+        !(rg1 > 0 && rload1 > 0 && rload2 > 0 && rsource >= 0) ||
+        !(cin > 0 && cout1 > 0 && cout2 > 0 && cstray1 >= 0 && cstray2 >= 0)
+      ) {
         writeInvalid(out, s);
         continue;
       }
@@ -181,6 +251,26 @@ export function createSplitLoadKernel(
       o_gm1[s] = gm;
       o_rp1[s] = rp;
       o_mu1[s] = mu;
+      // Frequency response: the capacitors join the small-signal circuit already in v.
+      v[AC_CIN] = cin;
+      v[AC_COUT1] = cout1;
+      v[AC_COUT2] = cout2;
+      v[AC_CSTRAY1] = cstray1;
+      v[AC_CSTRAY2] = cstray2;
+      for (let fi = 0; fi < acFreq.length; fi++) {
+        const ok = splitLoadResponseArr(v, acFreq[fi], h);
+        writeAcColumns(out, acCol, fi, s, ok, h);
+      }
+      if (corners) {
+        const ref1 = Math.abs(a11);
+        const ref2 = Math.abs(a12);
+        const solve = splitLoadResponseArr;
+        const nc = nomCorners;
+        out[corner0 + 2][s] = cornerFrequencyArr(solve, v, 1, ref1, 'high', nc[2], nc[6], h);
+        out[corner0 + 3][s] = cornerFrequencyArr(solve, v, 2, ref2, 'high', nc[3], nc[7], h);
+        out[corner0][s] = lowCorners ? cornerFrequencyArr(solve, v, 1, ref1, 'low', nc[0], nc[4], h) : 0;
+        out[corner0 + 1][s] = lowCorners ? cornerFrequencyArr(solve, v, 2, ref2, 'low', nc[1], nc[5], h) : 0;
+      }
       o_valid[s] = 1;
     }
   }

@@ -54,11 +54,12 @@ export function nominalStageInputs(d: ResolvedDesign): StageInputs {
   return {
     ...{
       rl1: p.rl1.value,
-      rl2: p.rl2.value,
+      // Absent only in a split-load design, which never reads them: copies keep the inputs finite.
+      rl2: p.rl2?.value ?? p.rl1.value,
       rk: p.rk.value,
       rt: p.rt.value,
       rg1: p.rg1.value,
-      rg2: p.rg2.value,
+      rg2: p.rg2?.value ?? p.rg1.value,
     },
     rload1: p.rload1?.value ?? Number.POSITIVE_INFINITY,
     rload2: p.rload2?.value ?? Number.POSITIVE_INFINITY,

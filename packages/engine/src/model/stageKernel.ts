@@ -1,14 +1,5 @@
 import type { ResolvedDesign } from '../design/designSchema.js';
-import {
-  acColumnId,
-  BAND_FREQUENCIES,
-  CORNER_METRIC_IDS,
-  METRIC_IDS,
-  METRICS,
-  type AcMetricId,
-  type MetricId,
-  type MetricInfo,
-} from './metrics.js';
+import { CORNER_METRIC_IDS, METRIC_IDS, METRICS, type MetricId, type MetricInfo } from './metrics.js';
 import {
   AC_CG2,
   AC_CGK1,
@@ -24,13 +15,11 @@ import {
   AC_CSTRAY2,
   AC_SLOTS,
   acResponseArr,
-  H1_IM,
-  H1_RE,
-  H2_IM,
-  H2_RE,
+  pairAcSolver,
   H_SLOTS,
 } from './acResponse.js';
-import { cornerFrequencyArr, cornerSlopeArr } from './cornerFrequency.js';
+import { cornerFrequencyArr, nominalCornerStarts } from './cornerFrequency.js';
+import { acColumns, writeAcColumns, writeNominalCapacitors } from './acColumns.js';
 import { createBiasPredictor } from './biasPredictor.js';
 import { closedFormGainsArr } from './closedFormGains.js';
 import {
@@ -148,8 +137,8 @@ const SAMPLE_STEP_TOL = 1e-6;
  * frequency metrics at each spec frequency, and, when the design uses the frequency analysis
  * (see usesFrequencyAnalysis; `corners` / `band` override), the −3 dB points (secant from the
  * nominal corners) and the balance at each BAND_FREQUENCIES entry.
- * A 'split-load' design gets its sibling kernel (createSplitLoadKernel): same inputs and metric
- * ids, no frequency analysis (spec frequency columns are NaN, no corners or band).
+ * A 'split-load' design gets its sibling kernel (createSplitLoadKernel): same inputs, metric ids
+ * and frequency columns, with its own DC, small-signal and frequency-response solves.
  *
  * @example
  * const k = createStageKernel(design);
@@ -162,15 +151,13 @@ export function createStageKernel(
   options?: { dcPerSample?: boolean; corners?: boolean; band?: boolean },
 ): StageKernel {
   const dcPerSample = options?.dcPerSample ?? true;
-  if (design.topology === 'split-load') {
-    const extra = acColumns(design, false, METRIC_IDS.length).ids;
-    return createSplitLoadKernel(design, INPUTS, [...METRIC_IDS, ...extra], dcPerSample);
-  }
   const analysis = usesFrequencyAnalysis(design);
   const corners = options?.corners ?? analysis;
   const cornerIds: readonly string[] = corners ? CORNER_METRIC_IDS : [];
   const ac = acColumns(design, options?.band ?? analysis, METRIC_IDS.length + cornerIds.length);
   const metrics: readonly string[] = [...METRIC_IDS, ...cornerIds, ...ac.ids];
+  if (design.topology === 'split-load')
+    return createSplitLoadKernel(design, INPUTS, metrics, { dcPerSample, corners, ac });
   const ctx = createStageContext(design);
   const nominal = nominalStageInputs(design);
   const nominalArray = Float64Array.from(INPUTS.map((id) => nominal[id]));
@@ -241,6 +228,7 @@ export function createStageKernel(
   const solveBias = solveStageBiasArr;
   const acResponse = acResponseArr;
   const corner = cornerFrequencyArr;
+  const solve = pairAcSolver(ctx.ss.capCoupled, ctx.ss.leakToGrid1);
 
   function evaluate(inputs: readonly Float64Array[], n: number, out: readonly Float64Array[]): void {
     const bp = ctx.bp;
@@ -431,11 +419,11 @@ export function createStageKernel(
       if (corners) {
         const ref1 = Math.abs(a11);
         const ref2 = Math.abs(a12);
-        o_fHigh1[s] = corner(capCoupled, leakToGrid1, v, 1, ref1, 'high', nomCorners[2], nomCorners[6], h);
-        o_fHigh2[s] = corner(capCoupled, leakToGrid1, v, 2, ref2, 'high', nomCorners[3], nomCorners[7], h);
+        o_fHigh1[s] = corner(solve, v, 1, ref1, 'high', nomCorners[2], nomCorners[6], h);
+        o_fHigh2[s] = corner(solve, v, 2, ref2, 'high', nomCorners[3], nomCorners[7], h);
         if (lowCorners) {
-          o_fLow1[s] = corner(capCoupled, leakToGrid1, v, 1, ref1, 'low', nomCorners[0], nomCorners[4], h);
-          o_fLow2[s] = corner(capCoupled, leakToGrid1, v, 2, ref2, 'low', nomCorners[1], nomCorners[5], h);
+          o_fLow1[s] = corner(solve, v, 1, ref1, 'low', nomCorners[0], nomCorners[4], h);
+          o_fLow2[s] = corner(solve, v, 2, ref2, 'low', nomCorners[1], nomCorners[5], h);
         } else {
           o_fLow1[s] = 0;
           o_fLow2[s] = 0;
@@ -468,73 +456,8 @@ export function usesFrequencyAnalysis(design: ResolvedDesign): boolean {
   return caps !== undefined || design.specs.some((s) => s.frequency !== undefined || corner(s.metric));
 }
 
-/** Column slots per frequency: gain 1, gain 2, balance, phase (-1 = not a column). */
-const AC_PER_FREQ = 4;
-
 /**
- * The frequency columns of a design: distinct frequencies (spec frequencies, then the band), and
- * per frequency the output column of each frequency metric or -1.
- */
-function acColumns(
-  design: ResolvedDesign,
-  band: boolean,
-  first: number,
-): { ids: string[]; frequencies: Float64Array; columns: Int32Array } {
-  const wanted: { metric: AcMetricId; f: number }[] = [];
-  const AC: readonly AcMetricId[] = ['acGain1', 'acGain2', 'acBalanceDb', 'acPhaseDeg'];
-  for (const spec of design.specs)
-    if (spec.frequency !== undefined) for (const m of AC) wanted.push({ metric: m, f: spec.frequency });
-  if (band) for (const f of BAND_FREQUENCIES) wanted.push({ metric: 'acBalanceDb', f });
-  const freqs: number[] = [];
-  const ids: string[] = [];
-  const cols: number[] = [];
-  for (const { metric, f } of wanted) {
-    const id = acColumnId(metric, f);
-    if (ids.includes(id)) continue;
-    let fi = freqs.indexOf(f);
-    if (fi < 0) {
-      fi = freqs.length;
-      freqs.push(f);
-      cols.push(-1, -1, -1, -1);
-    }
-    cols[fi * AC_PER_FREQ + AC.indexOf(metric)] = first + ids.length;
-    ids.push(id);
-  }
-  return { ids, frequencies: Float64Array.from(freqs), columns: Int32Array.from(cols) };
-}
-
-/** Writes the frequency columns of frequency index fi for sample s from the response in h. */
-function writeAcColumns(
-  out: readonly Float64Array[],
-  columns: Int32Array,
-  fi: number,
-  s: number,
-  ok: boolean,
-  h: Float64Array,
-): void {
-  const h1r = ok ? h[H1_RE] : Number.NaN;
-  const h1i = ok ? h[H1_IM] : Number.NaN;
-  const h2r = ok ? h[H2_RE] : Number.NaN;
-  const h2i = ok ? h[H2_IM] : Number.NaN;
-  const m1 = h1r * h1r + h1i * h1i;
-  const m2 = h2r * h2r + h2i * h2i;
-  const base = fi * AC_PER_FREQ;
-  let c = columns[base];
-  if (c >= 0) out[c][s] = Math.sqrt(m1);
-  c = columns[base + 1];
-  if (c >= 0) out[c][s] = Math.sqrt(m2);
-  c = columns[base + 2];
-  if (c >= 0) out[c][s] = 10 * Math.log10(m2 / m1);
-  c = columns[base + 3];
-  // Phase of vo2 against −vo1: arg(vo2 · conj(−vo1)).
-  if (c >= 0) out[c][s] = (Math.atan2(-(h2i * h1r - h2r * h1i), -(h2r * h1r + h2i * h1i)) * 180) / Math.PI;
-}
-
-/**
- * Nominal −3 dB points [fLow1, fLow2, fHigh1, fHigh2] (Hz) by a bracketed search from 1 kHz, then
- * the response slope at each (the per-sample secant's first step; 0 = none). A corner that does
- * not exist at nominal is replaced by 1 kHz with slope 0 (a start point must be finite). Fills v
- * with the nominal circuit.
+ * Nominal −3 dB points and slopes (see nominalCornerStarts); fills v with the nominal circuit.
  */
 function nominalCorners(
   ctx: ReturnType<typeof createStageContext>,
@@ -544,8 +467,7 @@ function nominalCorners(
   h: Float64Array,
   on: boolean,
 ): Float64Array {
-  const out = Float64Array.of(1e3, 1e3, 1e3, 1e3, 0, 0, 0, 0);
-  if (!on || nb.status !== 'ok') return out;
+  if (!on || nb.status !== 'ok') return Float64Array.of(1e3, 1e3, 1e3, 1e3, 0, 0, 0, 0);
   v[SS_RP1] = 1 / nb.ga1;
   v[SS_RP2] = 1 / nb.ga2;
   v[SS_MU1] = nb.gm1 / nb.ga1;
@@ -559,35 +481,11 @@ function nominalCorners(
   v[SS_RLOAD1] = x.rload1;
   v[SS_RLOAD2] = x.rload2;
   v[SS_RSOURCE] = x.rsource;
-  v[AC_CIN] = x.cin;
-  v[AC_CG2] = x.cg2;
-  v[AC_COUT1] = x.cout1;
-  v[AC_COUT2] = x.cout2;
-  v[AC_CSTRAY1] = x.cstray1;
-  v[AC_CSTRAY2] = x.cstray2;
+  writeNominalCapacitors(x, v);
   const g = new Float64Array(G_SLOTS);
   reducedNodalGainsArr(ctx.ss.capCoupled, ctx.ss.leakToGrid1, v, g);
-  const ref = [Math.abs(g[G_A11]), Math.abs(g[G_A12])];
-  const { capCoupled, leakToGrid1 } = ctx.ss;
-  for (let i = 0; i < 4; i++) {
-    const which = i % 2 === 0 ? 1 : 2;
-    const f = cornerFrequencyArr(
-      capCoupled,
-      leakToGrid1,
-      v,
-      which,
-      ref[which - 1],
-      i < 2 ? 'low' : 'high',
-      1e3,
-      0,
-      h,
-    );
-    if (Number.isFinite(f) && f > 0) {
-      out[i] = f;
-      out[i + 4] = cornerSlopeArr(capCoupled, leakToGrid1, v, which, f, h);
-    }
-  }
-  return out;
+  const solve = pairAcSolver(ctx.ss.capCoupled, ctx.ss.leakToGrid1);
+  return nominalCornerStarts(solve, v, Math.abs(g[G_A11]), Math.abs(g[G_A12]), h);
 }
 
 function writeInvalid(out: readonly Float64Array[], s: number): void {

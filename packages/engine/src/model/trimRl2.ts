@@ -28,7 +28,8 @@ export interface TrimResult {
 export function trimRl2(design: ResolvedDesign): TrimResult {
   const at = createStagePoint(design);
   const balance = (rl2: number) => at({ rl2 }).balanceDb;
-  const rl2 = design.parts.rl2.value;
+  // The schema requires RL2 for a long-tailed pair; only a split-load design (no trim) lacks it.
+  const rl2 = design.parts.rl2?.value ?? Number.NaN;
   let lo = rl2 / 10;
   let hi = rl2 * 10;
   let flo = balance(lo);

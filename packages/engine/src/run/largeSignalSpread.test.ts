@@ -37,10 +37,13 @@ describe('per-sample large-signal figures in the once-per-run extras', () => {
     }
   });
 
-  it('are off by default, absent for split-load, and the same whichever entry point computes them', () => {
+  it('are off by default, computed for split-load too, and the same whichever entry point computes them', () => {
     const { analyses: _, ...plain } = plan;
     expect(runExtras(guitar, plain).largeSignal).toBeUndefined();
-    expect(runExtras(load('guitar-12au7-split-load.json'), plan).largeSignal).toBeUndefined();
+    const splitLoad = runExtras(load('guitar-12au7-split-load.json'), plan).largeSignal!;
+    expect(splitLoad.subsample).toBe(32);
+    expect(splitLoad.swing2.count).toBe(32);
+    expect(splitLoad.thd2Percent.mean!).toBeGreaterThan(0);
     expect(setupExtras(designSetup(guitar), plan).largeSignal).toEqual(ls);
     const chunks = Array.from({ length: chunkCount(plan) }, (_, k) => runChunk(guitar, plan, k));
     expect(mergeChunks(guitar, plan, chunks).largeSignal).toEqual(ls);

@@ -30,8 +30,8 @@ export function setupExtras(setup: RunSetup, plan: RunPlan): Partial<RunResults>
   if (a.varianceIndices !== false && model.dims.length > 0)
     extras.varianceIndices = varianceIndices(model, plan.seed);
   if (a.worstCase !== false) extras.worstCase = worstCase(model);
-  // Needs the design itself (not only the kernel); the model is the long-tailed pair's.
-  if (a.largeSignal === true && setup.design && setup.design.topology !== 'split-load')
+  // Needs the design itself (not only the kernel); largeSignalReport dispatches on the topology.
+  if (a.largeSignal === true && setup.design)
     extras.largeSignal = largeSignalSpread(setup.design, setup, plan);
   return extras;
 }

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { RunView } from '../api/types.js';
 import { defaultDesign } from '../design/defaultDesign.js';
-import { latestDoneRun, splitterFigures } from './splitterFigures.js';
+import { DISTORTION_OUTPUT_PEAK, latestDoneRun, splitterFigures } from './splitterFigures.js';
 
 /** The engine example's 12AU7 cathodyne at 300 V (22k plate, 1k + 22k cathode, 220k loads). */
 function splitLoad() {
@@ -25,6 +25,12 @@ describe('splitter figures', () => {
     // Balance as the engine defines it: 20·log10(|A2|/|A1|).
     expect(f.balanceDb).toBeCloseTo(20 * Math.log10(Math.abs(f.gain2 / f.gain1)), 12);
     expect(f.zout2).toBeLessThan(f.zout1 / 5);
+    // Large signal: tens of volts of swing on each output, low distortion at 20 V peak.
+    expect(f.swing1).toBeGreaterThan(DISTORTION_OUTPUT_PEAK);
+    expect(f.swing2).toBeGreaterThan(DISTORTION_OUTPUT_PEAK);
+    expect(f.drive).toBeGreaterThan(DISTORTION_OUTPUT_PEAK);
+    expect(f.thd1Percent).toBeGreaterThan(0);
+    expect(f.thd2Percent).toBeLessThan(5);
   });
 
   it('a long-tailed pair: gains of opposite sign and tens in size', () => {
@@ -32,6 +38,9 @@ describe('splitter figures', () => {
     expect(f.topology).toMatch(/^Long-tailed pair/);
     expect(f.gain1 * f.gain2).toBeLessThan(0);
     expect(Math.abs(f.gain1)).toBeGreaterThan(5);
+    // The same output level needs far less drive from a pair with gain.
+    expect(f.drive).toBeLessThan(DISTORTION_OUTPUT_PEAK / 5);
+    expect(f.thd2Percent).toBeGreaterThan(0);
   });
 
   it('says why there are no figures for a document that does not parse', () => {

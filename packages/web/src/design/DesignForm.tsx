@@ -11,6 +11,7 @@ import { StageFields } from './StageFields.js';
 import { StageSchematic } from './StageSchematic.js';
 import { TubeFields } from './TubeFields.js';
 import { useNominal } from './useNominal.js';
+import { withoutUnusedParts } from './withoutUnusedParts.js';
 
 interface DesignFormProps {
   initial: Design;
@@ -42,8 +43,9 @@ export function DesignForm({
   const [message, setMessage] = useState('');
   const [saveError, setSaveError] = useState<unknown>(null);
   const live = useNominal(form.watch());
-  const submit = form.handleSubmit(async (doc) => {
+  const submit = form.handleSubmit(async (edited) => {
     setSaveError(null);
+    const doc = withoutUnusedParts(edited);
     try {
       await onSave?.(doc, message);
       form.reset(doc);

@@ -6,7 +6,8 @@ import { formatSi } from '../format/formatSi.js';
 
 /**
  * The nominal frequency response, recomputed by the engine in the browser as the design changes:
- * gain of both outputs, balance and phase error against frequency, and the −3 dB points.
+ * gain of both outputs, balance and phase error against frequency, and the −3 dB points. Output 1
+ * is plate 1 (the plate of a split-load), output 2 plate 2 (the cathode of a split-load).
  */
 export function FrequencyPanel({
   design,
@@ -17,6 +18,7 @@ export function FrequencyPanel({
 }) {
   const r = useMemo(() => nominalFrequencyResponse(design), [design]);
   if (r.status !== 'ok') return null;
+  const [name1, name2] = design.topology === 'split-load' ? ['plate', 'cathode'] : ['plate 1', 'plate 2'];
   const corner = (id: string) => (id in metrics ? formatSi(metrics[id], 'Hz') : '—');
   const balanceLimits = design.specs.filter((s) => s.metric === 'acBalanceDb').flatMap((s) => [s.min, s.max]);
   const phaseLimits = design.specs.filter((s) => s.metric === 'acPhaseDeg').flatMap((s) => [s.min, s.max]);
@@ -34,8 +36,8 @@ export function FrequencyPanel({
             label="Gain of output 1 and output 2 against frequency"
             frequencies={r.frequencies}
             series={[
-              { label: 'out 1 (plate 1)', values: r.gain1Db },
-              { label: 'out 2 (plate 2)', values: r.gain2Db, dashed: true },
+              { label: `out 1 (${name1})`, values: r.gain1Db },
+              { label: `out 2 (${name2})`, values: r.gain2Db, dashed: true },
             ]}
             unit="dB"
           />

@@ -1,4 +1,5 @@
-import { render, screen, within } from '@testing-library/react';
+import { render, screen, waitFor, within } from '@testing-library/react';
+import type { Design } from '@sigmatail/engine';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import { defaultDesign } from './defaultDesign.js';
@@ -33,7 +34,7 @@ describe('live nominal results', () => {
     expect(evaluateNominal(v1).ok).toBe(true);
   });
 
-  it('shows a split-load design as one section with plate and cathode outputs, no trim or plots', () => {
+  it('shows a split-load design as one section with plate and cathode outputs, its Bode plot and large signal, no trim', () => {
     const d = { ...defaultDesign(), topology: 'split-load' as const };
     d.supply = { bPlus: 300, tail: 0 };
     Object.assign(d.parts, {
@@ -48,7 +49,19 @@ describe('live nominal results', () => {
     expect(screen.getByTestId('balance').textContent).toMatch(/dB$/);
     expect(within(panel).queryByText('Nearest E24')).toBeNull();
     expect(within(panel).queryByText('CMRR')).toBeNull();
-    expect(screen.queryByRole('img', { name: 'Balance against frequency' })).toBeNull();
+    expect(screen.getByRole('img', { name: 'Balance against frequency' })).toBeInTheDocument();
+    expect(screen.getByTestId('large-signal').textContent).toMatch(
+      /Symmetrical swing, plate \/ cathode[\d.]+ V \/ [\d.]+ V peak/,
+    );
+    expect(screen.getByTestId('large-signal').textContent).toMatch(
+      /THD plate \/ cathode[\d.]+ % \/ [\d.]+ %/,
+    );
+    // A coupling capacitor into the cathode's load gives that output a low corner.
+    const cap = (value: string) => ({ value, tolerance: 10, spread: { kind: 'normal' as const } });
+    d.parts.rload2 = { value: '220k', tolerance: 10, spread: { kind: 'normal' } };
+    Object.assign(d.parts, { cout2: cap('47n') });
+    render(<LiveResults state={evaluateNominal(d)} />);
+    expect(screen.getAllByTestId('corners')[1].textContent).toMatch(/out 2 \d[\d.]* Hz … /);
   });
 
   it('the topology choice offers the split-load splitter and then shows only its parts', async () => {
@@ -59,6 +72,32 @@ describe('live nominal results', () => {
     expect(screen.queryAllByText('RL2')).toEqual([]);
     expect(screen.queryAllByText('RG2')).toEqual([]);
     expect(await screen.findByText('Gain to cathode')).toBeInTheDocument();
+  });
+
+  it('saves a split-load design without RL2 and RG2, and a switch to a pair brings them back from RL1 and RG1', async () => {
+    const base = defaultDesign();
+    const { rl2: _rl2, rg2: _rg2, ...parts } = base.parts;
+    const lean = { ...base, topology: 'split-load' as const, supply: { bPlus: 300, tail: 0 }, parts };
+    const saved: Design[] = [];
+    render(
+      <DesignForm
+        initial={lean}
+        readOnly={false}
+        onSave={async (doc) => {
+          saved.push(doc);
+        }}
+      />,
+    );
+    await userEvent.click(screen.getByRole('button', { name: 'Save revision' }));
+    await waitFor(() => expect(saved).toHaveLength(1));
+    expect(saved[0].parts.rl2).toBeUndefined();
+    expect(saved[0].parts.rg2).toBeUndefined();
+    await userEvent.selectOptions(screen.getByLabelText('Topology'), 'Capacitor-coupled (grids leak to J)');
+    expect(await screen.findByLabelText('RL2 value')).toHaveValue(String(base.parts.rl1.value));
+    expect(screen.getByLabelText('RG2 value')).toHaveValue(String(base.parts.rg1.value));
+    await userEvent.click(screen.getByRole('button', { name: 'Save revision' }));
+    await waitFor(() => expect(saved).toHaveLength(2));
+    expect(saved[1].parts.rl2).toEqual(base.parts.rl1);
   });
 
   it('names the fields to fix when the design does not parse', () => {
@@ -75,7 +114,7 @@ describe('live nominal results', () => {
     const hot = defaultDesign();
     hot.supply.bPlus = 320;
     hot.parts.rl1.value = '10k';
-    hot.parts.rl2.value = '10k';
+    hot.parts.rl2!.value = '10k';
     hot.parts.rt.value = '1k';
     hot.parts.rk.value = '100R';
     render(<LiveResults state={evaluateNominal(hot)} />);

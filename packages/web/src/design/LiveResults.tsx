@@ -58,7 +58,11 @@ export function LiveResults({ state }: { state: NominalState }) {
         </ul>
       )}
       {report.status === 'ok' && state.design.topology === 'split-load' && (
-        <SplitLoadResults report={report} />
+        <>
+          <SplitLoadResults report={report} />
+          <FrequencyPanel design={state.design} metrics={m} />
+          <LargeSignalPanel design={state.design} />
+        </>
       )}
       {report.status === 'ok' && state.design.topology !== 'split-load' && (
         <>

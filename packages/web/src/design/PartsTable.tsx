@@ -39,6 +39,14 @@ const CAPACITORS: [PartName, string, string, number][] = [
   ['cstray1', 'Cstray1 (plate 1 stray)', '47p', 30],
   ['cstray2', 'Cstray2 (plate 2 stray)', '47p', 30],
 ];
+// The split-load splitter has no second grid to bypass; its second output is the cathode.
+const SPLIT_LOAD_CAPACITORS: [PartName, string, string, number][] = [
+  ['cin', 'Cin (input coupling)', '22n', 10],
+  ['cout1', 'Cout1 (plate coupling)', '47n', 10],
+  ['cout2', 'Cout2 (cathode coupling)', '47n', 10],
+  ['cstray1', 'Cstray1 (plate stray)', '47p', 30],
+  ['cstray2', 'Cstray2 (cathode stray)', '47p', 30],
+];
 
 /**
  * Every toleranced part of the stage: the resistors (loads and source resistance can be left out)
@@ -50,8 +58,7 @@ export function PartsTable({ readOnly }: { readOnly: boolean }) {
   const splitLoad = watch('topology') === 'split-load';
   const required = splitLoad ? SPLIT_LOAD_REQUIRED : REQUIRED;
   const optional = splitLoad ? SPLIT_LOAD_OPTIONAL : OPTIONAL;
-  // The split-load frequency response is not modelled, so its capacitors are not offered.
-  const capacitors = splitLoad ? [] : CAPACITORS;
+  const capacitors = splitLoad ? SPLIT_LOAD_CAPACITORS : CAPACITORS;
   return (
     <div className="overflow-x-auto">
       <Table
@@ -120,7 +127,7 @@ export function PartsTable({ readOnly }: { readOnly: boolean }) {
         ))}
         <span className="text-xs text-dim">
           {splitLoad
-            ? 'Split-load: the frequency response is not modelled, so no capacitors.'
+            ? 'Capacitors left out are ideal (coupling) or absent (stray).'
             : 'Capacitors left out are ideal (coupling, bypass) or absent (stray).'}
         </span>
       </div>

@@ -13,7 +13,8 @@ function Row({ label, children, warn = false }: { label: ReactNode; children: Re
 
 /**
  * The nominal results of a split-load (cathodyne) design: one section, the plate and cathode
- * outputs (engine metrics a11/a12, zout1/zout2), and no trim, frequency response or large signal.
+ * outputs (engine metrics a11/a12, zout1/zout2), and no trim (there is no RL2). The frequency
+ * response and the large signal follow in their own panels.
  */
 export function SplitLoadResults({ report }: { report: NominalReport }) {
   const m = report.metrics;
@@ -54,8 +55,8 @@ export function SplitLoadResults({ report }: { report: NominalReport }) {
         </dl>
       </div>
       <p className="text-xs text-dim">
-        The cathode sits well above ground: check the heater–cathode rating. Frequency response, large signal
-        and the RL2 trim are not modelled for the split-load splitter.
+        The cathode sits well above ground: check the heater–cathode rating. There is no RL2 to trim: balance
+        follows from the plate and cathode loads.
       </p>
     </>
   );

@@ -11,8 +11,20 @@ export function StageFields() {
   const {
     register,
     watch,
+    getValues,
+    setValue,
     formState: { errors },
   } = useFormContext<Design>();
+  // A split-load document may lack section 2's RL2 and RG2; a long-tailed pair needs them, so a
+  // switch to a pair starts them as copies of RL1 and RG1.
+  const topologyField = register('topology', {
+    onChange: (e: { target: { value: string } }) => {
+      if (e.target.value === 'split-load') return;
+      const opts = { shouldDirty: true, shouldValidate: true };
+      if (!getValues('parts.rl2')) setValue('parts.rl2', { ...getValues('parts.rl1') }, opts);
+      if (!getValues('parts.rg2')) setValue('parts.rg2', { ...getValues('parts.rg1') }, opts);
+    },
+  });
   const topology = watch('topology');
   const grid2Mode = watch('drive.grid2.mode');
   return (
@@ -28,7 +40,7 @@ export function StageFields() {
         <textarea id="d-notes" rows={2} className={inputClass} {...register('notes')} />
       </Field>
       <Field id="d-topology" label="Topology">
-        <select id="d-topology" className={inputClass} {...register('topology')}>
+        <select id="d-topology" className={inputClass} {...topologyField}>
           <option value="cap-coupled">Capacitor-coupled (grids leak to J)</option>
           <option value="direct-coupled">Direct-coupled (grid 1 at a DC level)</option>
           <option value="split-load">Split-load (cathodyne)</option>

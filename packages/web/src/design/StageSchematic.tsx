@@ -119,7 +119,7 @@ export function StageSchematic({ design, report }: { design: ResolvedDesign; rep
         </tspan>
       </text>
       <Resistor x={x1} y1={34} y2={118} name="RL1" value={v(p.rl1.value)} side="left" />
-      <Resistor x={x2} y1={34} y2={118} name="RL2" value={v(p.rl2.value)} />
+      <Resistor x={x2} y1={34} y2={118} name="RL2" value={v(p.rl2?.value ?? Number.NaN)} />
       <Dot x={x1} y={118} />
       <Dot x={x2} y={118} />
       {/* outputs */}
@@ -190,7 +190,7 @@ export function StageSchematic({ design, report }: { design: ResolvedDesign; rep
       {/* grid 2: leak and AC ground */}
       <line x1={x2 + 48} x2={470} y1={162} y2={162} stroke={WIRE} strokeWidth={2} />
       <Dot x={440} y={162} />
-      <Resistor x={440} y1={162} y2={300} name="RG2" value={v(p.rg2.value)} />
+      <Resistor x={440} y1={162} y2={300} name="RG2" value={v(p.rg2?.value ?? Number.NaN)} />
       <line x1={440} x2={kx} y1={300} y2={300} stroke={WIRE} strokeWidth={2} />
       <g stroke={WIRE} strokeWidth={2}>
         <line x1={470} x2={470} y1={162} y2={190} />

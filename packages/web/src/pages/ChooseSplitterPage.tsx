@@ -1,9 +1,9 @@
 import { useQuery } from '@tanstack/react-query';
-import type { ReactNode } from 'react';
+import { useMemo, type ReactNode } from 'react';
 import { Link, useSearchParams } from 'react-router';
 import { designQueries } from '../api/queries/designQueries.js';
 import { runQueries } from '../api/queries/runQueries.js';
-import { latestDoneRun, splitterFigures } from '../choose/splitterFigures.js';
+import { DISTORTION_OUTPUT_PEAK, latestDoneRun, splitterFigures } from '../choose/splitterFigures.js';
 import { QueryStatus } from '../components/QueryState.js';
 import { inputClass, PageTitle, Panel } from '../components/ui.js';
 import { formatSi, formatSig } from '../format/formatSi.js';
@@ -17,7 +17,9 @@ const SLOTS = [
 function useColumn(id: string) {
   const design = useQuery({ ...designQueries.detail(id), enabled: id !== '' });
   const runs = useQuery({ ...runQueries.list({ designId: id, status: 'done' }), enabled: id !== '' });
-  const figures = design.data ? splitterFigures(design.data.latestRevision.document) : null;
+  // The large-signal figures take tens of milliseconds: once per loaded design, not per render.
+  const doc = design.data?.latestRevision.document;
+  const figures = useMemo(() => (doc ? splitterFigures(doc) : null), [doc]);
   const run = runs.data ? latestDoneRun(runs.data) : null;
   const results = useQuery({ ...runQueries.results(run?.id ?? ''), enabled: run !== null });
   const balance = results.data?.results.metrics.balanceDb ?? null;
@@ -100,6 +102,20 @@ export function ChooseSplitterPage() {
             {row('Balance |A2|/|A1|', (c) => formatSi(c.figures!.balanceDb, 'dB'))}
             {row('Zout 1', (c) => formatSi(c.figures!.zout1, 'Ω'))}
             {row('Zout 2', (c) => formatSi(c.figures!.zout2, 'Ω'))}
+            {row('Symmetrical swing, output 1 (peak, before grid current or cut-off)', (c) =>
+              formatSi(c.figures!.swing1, 'V'),
+            )}
+            {row('Symmetrical swing, output 2 (peak)', (c) => formatSi(c.figures!.swing2, 'V'))}
+            {row(`THD at ${DISTORTION_OUTPUT_PEAK} V peak on output 1: output 1 / output 2`, (c) =>
+              Number.isFinite(c.figures!.thd1Percent) ? (
+                <>
+                  {formatSig(c.figures!.thd1Percent)} % / {formatSig(c.figures!.thd2Percent)} %
+                  <span className="text-dim"> ({formatSi(c.figures!.drive, 'V')} peak drive)</span>
+                </>
+              ) : (
+                'beyond the swing'
+              ),
+            )}
             {row('Balance spread (latest finished run): sd, 2.5–97.5 %', (c) =>
               c.balance && c.balance.sd !== null ? (
                 <>
