@@ -32,9 +32,9 @@ export function LargeSignalSpreadPanel({ results }: { results: RunResults }) {
             <strong className="num text-ink" data-testid="large-signal-drive">
               {f(ls.drive, 'V')} peak
             </strong>{' '}
-            on grid 1 (half the nominal symmetrical drive limit); swings are peak at each plate. The interval
-            is for the mean of the figure, not for single units: min–max shows the spread within the
-            subsample.
+            on grid 1 (half the nominal symmetrical drive limit); swings are peak at each output (output 2 is
+            the cathode of a split-load stage). The interval is for the mean of the figure, not for single
+            units: min–max shows the spread within the subsample.
           </p>
           <table className="num w-full text-sm" aria-label="Large signal per sample">
             <thead>

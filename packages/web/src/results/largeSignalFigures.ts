@@ -8,11 +8,11 @@ export type LargeSignalFigure = {
   get: (s: LargeSignalSpread) => LargeSignalSummary | undefined;
 };
 
-/** The figures in reading order: drive range, swing per plate, then distortion per output. */
+/** The figures in reading order: drive range, swing per output, then distortion per output (output 1 is plate 1; output 2 is plate 2 of a long-tailed pair, the cathode of a split-load stage). */
 export const LARGE_SIGNAL_FIGURES: readonly LargeSignalFigure[] = [
   { key: 'driveLimit', label: 'Symmetrical drive limit, grid 1', unit: 'V', get: (s) => s.driveSymmetric },
-  { key: 'swing1', label: 'Symmetrical swing, plate 1', unit: 'V', get: (s) => s.swing1 },
-  { key: 'swing2', label: 'Symmetrical swing, plate 2', unit: 'V', get: (s) => s.swing2 },
+  { key: 'swing1', label: 'Symmetrical swing, output 1', unit: 'V', get: (s) => s.swing1 },
+  { key: 'swing2', label: 'Symmetrical swing, output 2', unit: 'V', get: (s) => s.swing2 },
   { key: 'thd1', label: 'THD, out 1', unit: '%', get: (s) => s.thd1Percent },
   { key: 'h21', label: 'H2, out 1', unit: '%', get: (s) => s.h2Percent1 },
   { key: 'h31', label: 'H3, out 1', unit: '%', get: (s) => s.h3Percent1 },
