@@ -38,6 +38,14 @@ describe('engineer chooses between a long-tailed pair and a split-load splitter'
     await page.goto(`${h.baseUrl}/designs`);
     await page.getByRole('link', { name: 'Choose the splitter' }).click();
     await page.waitForURL(/\/designs\/choose/);
+    // Opened without a choice, it starts from one design of each kind; each list offers only its kind.
+    await page.waitForURL(/ltp=.*split=|split=.*ltp=/);
+    const splitOptions = await page
+      .getByLabel('Split-load', { exact: true })
+      .locator('option')
+      .allTextContents();
+    expect(splitOptions).toContain('Guitar 12AU7 split-load');
+    expect(splitOptions).not.toContain('FL-50 driver: 12AX7 cap-coupled splitter');
     await page
       .getByLabel('Long-tailed pair')
       .selectOption({ label: 'FL-50 driver: 12AX7 cap-coupled splitter' });

@@ -1,6 +1,7 @@
 import { largeSignalReport } from '@sigmatail/engine';
 import type { RunView } from '../api/types.js';
 import { evaluateNominal } from '../design/useNominal.js';
+import { topologyLabel } from '../format/topologyLabel.js';
 
 /**
  * Output level (V peak at output 1) the distortion of both designs is stated at: one level for
@@ -30,12 +31,6 @@ export interface SplitterFigures {
   drive: number;
 }
 
-const TOPOLOGY_LABEL: Record<string, string> = {
-  'cap-coupled': 'Long-tailed pair, capacitor-coupled',
-  'direct-coupled': 'Long-tailed pair, direct-coupled',
-  'split-load': 'Split-load (cathodyne)',
-};
-
 /**
  * The nominal figures of a stored design document, evaluated by the engine in the browser: the
  * small signal, and the large signal (swing of each output, THD of each output with output 1 at
@@ -50,7 +45,7 @@ export function splitterFigures(document: unknown): SplitterFigures {
     ...{ gain1: NaN, gain2: NaN, balanceDb: NaN, zout1: NaN, zout2: NaN },
     ...{ swing1: NaN, swing2: NaN, thd1Percent: NaN, thd2Percent: NaN, drive: NaN },
   };
-  const label = TOPOLOGY_LABEL[topology] ?? topology;
+  const label = topologyLabel(topology);
   const state = evaluateNominal(document);
   if (!state.ok) return { name, topology: label, problem: 'the design does not parse', ...none };
   const r = state.report;

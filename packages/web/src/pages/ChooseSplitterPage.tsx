@@ -1,5 +1,5 @@
 import { useQuery } from '@tanstack/react-query';
-import { useMemo, type ReactNode } from 'react';
+import { useEffect, useMemo, useRef, type ReactNode } from 'react';
 import { Link, useSearchParams } from 'react-router';
 import { designQueries } from '../api/queries/designQueries.js';
 import { runQueries } from '../api/queries/runQueries.js';
@@ -9,8 +9,8 @@ import { inputClass, PageTitle, Panel } from '../components/ui.js';
 import { formatSi, formatSig } from '../format/formatSi.js';
 
 const SLOTS = [
-  { key: 'ltp', label: 'Long-tailed pair' },
-  { key: 'split', label: 'Split-load' },
+  { key: 'ltp', label: 'Long-tailed pair', fits: (t: string | null | undefined) => t !== 'split-load' },
+  { key: 'split', label: 'Split-load', fits: (t: string | null | undefined) => t === 'split-load' || !t },
 ] as const;
 
 /** One column of the comparison: a picked design's nominal figures and its latest finished run. */
@@ -32,6 +32,21 @@ export function ChooseSplitterPage() {
   const ids = SLOTS.map((s) => params.get(s.key) ?? '');
   const list = useQuery(designQueries.list(''));
   const cols = [useColumn(ids[0]), useColumn(ids[1])];
+  // Opened without a choice: start from the most recently changed design of each kind, so the
+  // page shows a comparison at once (the list comes newest first). Only once per visit: a reader
+  // who clears a slot keeps it cleared.
+  const preset = useRef(false);
+  useEffect(() => {
+    if (preset.current || !list.data) return;
+    preset.current = true;
+    if (SLOTS.some((s) => params.has(s.key))) return;
+    const next = new URLSearchParams(params);
+    for (const s of SLOTS) {
+      const first = list.data.find((d) => s.fits(d.topology));
+      if (first) next.set(s.key, first.id);
+    }
+    setParams(next, { replace: true });
+  }, [list.data, params, setParams]);
   const pick = (key: string, id: string) => {
     const next = new URLSearchParams(params);
     if (id) next.set(key, id);
@@ -68,11 +83,13 @@ export function ChooseSplitterPage() {
                 onChange={(e) => pick(s.key, e.target.value)}
               >
                 <option value="">Pick a design…</option>
-                {(list.data ?? []).map((d) => (
-                  <option key={d.id} value={d.id}>
-                    {d.name}
-                  </option>
-                ))}
+                {(list.data ?? [])
+                  .filter((d) => d.id === ids[i] || s.fits(d.topology))
+                  .map((d) => (
+                    <option key={d.id} value={d.id}>
+                      {d.name}
+                    </option>
+                  ))}
               </select>
             </div>
           ))}
