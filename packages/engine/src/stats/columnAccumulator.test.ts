@@ -103,4 +103,28 @@ describe('accumulateColumnInPlace', () => {
       }
     }
   });
+
+  it('keeps the extremes exact when many values share one bin position (rounding in x − lo)', () => {
+    // x − lo rounds to the same double for every x in (0, 1) here, so every sample ties with the
+    // minimum and maximum in bin position while the values differ.
+    const grid: HistogramGrid = { lo: -1e20, width: 1e17, bins: 2048 };
+    const g = createStream('accumulator-ties');
+    const values = Array.from({ length: 1001 }, () => g.nextDouble());
+    // A first value far above (below) makes only the minimum (maximum) side tie.
+    for (const first of [[], [5e4], [-5e4]]) {
+      const xs = [...first, ...values];
+      expect(fedInBlocks([xs.slice(0, 333), xs.slice(333)], grid)).toEqual(reference(xs, grid));
+    }
+    // A new extreme that ties in bin position, at each place in a group of four, the others inside.
+    const records = [0.95, 1e6, 5e5, 5e5];
+    for (let k = 1; k <= 40; k++) {
+      const group = [5e5, 5e5, 5e5, 5e5];
+      group[k % 4] = Math.floor(k / 4) % 2 === 0 ? 0.95 - 0.02 * k : 1e6 + 0.1 * k;
+      records.push(...group);
+    }
+    for (let end = 8; end <= records.length; end += 4) {
+      expect(fedInBlocks([records.slice(0, end)], grid)).toEqual(reference(records.slice(0, end), grid));
+    }
+    expect(fedInBlocks([records], grid)).toMatchObject({ min: 0.95 - 0.02 * 40, max: 1e6 + 0.1 * 39 });
+  });
 });

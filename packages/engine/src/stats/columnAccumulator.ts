@@ -92,10 +92,14 @@ function addRepeatedInPlace(a: ColumnAccumulator, x: number, k: number): void {
 }
 
 /**
- * In place: adds col[from..n) sample by sample; the shift is already set. Four samples per step
- * when all four fall inside the grid (then all are finite, so neither the finite test nor the
- * under/over counts are needed): fewer instructions per sample, which is what this loop is bound
- * by. The sums still add in sample order, so the bits are those of the one-sample loop.
+ * In place: adds col[from..n) sample by sample; the shift is already set. This loop is bound by
+ * instructions per sample, so it takes four samples per step while all four lie strictly between
+ * the extremes so far and inside the grid: then none is a new minimum or maximum and all are
+ * finite, so the extremes, the finite test and the under/over counts are left out of the step.
+ * The test runs on bin positions: b(x) = (x − lo)·inv never decreases as x grows (each rounding
+ * is monotone), so b(x) > b(min) implies x > min and b(x) < b(max) implies x < max. Any other
+ * group of four goes one by one. The sums still add in sample order, so the bits are those of the
+ * plain one-sample loop (columnAccumulator.test.ts holds them to it).
  */
 function accumulateRangeInPlace(a: ColumnAccumulator, col: Float64Array, from: number, n: number): void {
   const shift = a.shift;
@@ -111,17 +115,24 @@ function accumulateRangeInPlace(a: ColumnAccumulator, col: Float64Array, from: n
   const inv = 1 / a.grid.width;
   const nb = a.grid.bins;
   let s = from;
-  for (; s + 3 < n; s += 4) {
-    const x0 = col[s];
-    const x1 = col[s + 1];
-    const x2 = col[s + 2];
-    const x3 = col[s + 3];
-    // Position in bins; truncation equals floor once b >= 0. NaN fails every comparison.
-    const b0 = (x0 - lo) * inv;
-    const b1 = (x1 - lo) * inv;
-    const b2 = (x2 - lo) * inv;
-    const b3 = (x3 - lo) * inv;
-    if (b0 >= 0 && b0 < nb && b1 >= 0 && b1 < nb && b2 >= 0 && b2 < nb && b3 >= 0 && b3 < nb) {
+  while (s + 3 < n) {
+    // Open interval of bin positions for the four-sample step: inside (b(min), b(max)) and the
+    // grid [0, nb). b > -MIN_VALUE is b >= 0. With no sample yet (min = +∞) it is empty.
+    const low = Math.max((min - lo) * inv, -Number.MIN_VALUE);
+    const high = Math.min((max - lo) * inv, nb);
+    for (; s + 3 < n; s += 4) {
+      const x0 = col[s];
+      const x1 = col[s + 1];
+      const x2 = col[s + 2];
+      const x3 = col[s + 3];
+      const b0 = (x0 - lo) * inv;
+      const b1 = (x1 - lo) * inv;
+      const b2 = (x2 - lo) * inv;
+      const b3 = (x3 - lo) * inv;
+      // NaN fails every comparison, so a sample without a value leaves the step too.
+      if (!(b0 > low && b0 < high && b1 > low && b1 < high && b2 > low && b2 < high && b3 > low && b3 < high))
+        break;
+      // Truncation equals floor for b >= 0.
       bins[b0 | 0]++;
       bins[b1 | 0]++;
       bins[b2 | 0]++;
@@ -138,19 +149,11 @@ function accumulateRangeInPlace(a: ColumnAccumulator, col: Float64Array, from: n
       const d3 = x3 - shift;
       s1 += d3;
       s2 += d3 * d3;
-      if (x0 < min) min = x0;
-      if (x0 > max) max = x0;
-      if (x1 < min) min = x1;
-      if (x1 > max) max = x1;
-      if (x2 < min) min = x2;
-      if (x2 > max) max = x2;
-      if (x3 < min) min = x3;
-      if (x3 > max) max = x3;
-      continue;
     }
-    // Some sample is outside the grid or not finite: these four one by one, as the tail below.
-    for (let t = s; t < s + 4; t++) {
-      const x = col[t];
+    if (s + 3 >= n) break;
+    // These four one by one (a new extreme, a value off the grid or not finite), as the tail below.
+    for (const end = s + 4; s < end; s++) {
+      const x = col[s];
       const b = (x - lo) * inv;
       if (b >= 0 && b < nb) bins[b | 0]++;
       else if (x - x !== 0) {
