@@ -1,5 +1,6 @@
-// Engine figures: kernel and full-chunk throughput per core, the ml-matrix baseline, PRNG speed
-// and heap use against N. Fixed seeds and sizes; speed is reported here, never asserted in tests.
+// Engine figures: kernel and full-chunk throughput per core, the ml-matrix baseline, the full chunk
+// against a hand loop (src/handLoop.ts), PRNG speed and heap use against N. Fixed seeds and sizes;
+// speed is reported here, never asserted in tests.
 // Run: npm run bench (repo root). Add --expose-gc (the script does) for settled heap figures.
 import os from 'node:os';
 import {
