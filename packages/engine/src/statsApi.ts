@@ -10,6 +10,7 @@ export type { SpreadSpec, PartSpec, TubeSpreadSpec } from './spread/spreadTypes.
 export * from './sampling/fillUniforms.js';
 export { sobolDirections, SOBOL_MAX_DIMS } from './sampling/sobolDirections.js';
 export * from './stats/histogramGrid.js';
+export * from './stats/columnAccumulator.js';
 export * from './stats/metricChunk.js';
 export * from './stats/metricTotals.js';
 export * from './stats/quantileFromBins.js';

@@ -68,10 +68,16 @@ export function accumulateColumnInPlace(a: ColumnAccumulator, col: Float64Array,
   }
   if (s === n) return;
   const x0 = col[s];
-  let same = s + 1;
-  while (same < n && col[same] === x0) same++;
-  if (same === n && x0 - a.shift === 0) addRepeatedInPlace(a, x0, n - s);
+  if (repeatedTo(col, x0, s + 1, n) === n && x0 - a.shift === 0) addRepeatedInPlace(a, x0, n - s);
   else accumulateRangeInPlace(a, col, s, n);
+}
+
+/** First index in [from, n) whose value is not x0 (n if none); four samples per step. */
+function repeatedTo(col: Float64Array, x0: number, from: number, n: number): number {
+  let s = from;
+  while (s + 3 < n && col[s] === x0 && col[s + 1] === x0 && col[s + 2] === x0 && col[s + 3] === x0) s += 4;
+  while (s < n && col[s] === x0) s++;
+  return s;
 }
 
 /** In place: adds k copies of x, where x − shift is exactly 0 (so s1 and s2 do not change). */
@@ -85,37 +91,100 @@ function addRepeatedInPlace(a: ColumnAccumulator, x: number, k: number): void {
   else a.bins[b | 0] += k;
 }
 
-/** In place: adds col[from..n) sample by sample; the shift is already set. */
+/**
+ * In place: adds col[from..n) sample by sample; the shift is already set. This loop is bound by
+ * instructions per sample, so it takes four samples per step while all four lie strictly between
+ * the extremes so far and inside the grid: then none is a new minimum or maximum and all are
+ * finite, so the extremes, the finite test and the under/over counts are left out of the step.
+ * The test runs on bin positions: b(x) = (x − lo)·inv never decreases as x grows (each rounding
+ * is monotone), so b(x) > b(min) implies x > min and b(x) < b(max) implies x < max. Any other
+ * group of four goes one by one. The sums still add in sample order, so the bits are those of the
+ * plain one-sample loop (columnAccumulator.test.ts holds them to it).
+ */
 function accumulateRangeInPlace(a: ColumnAccumulator, col: Float64Array, from: number, n: number): void {
   const shift = a.shift;
-  let count = a.count;
   let s1 = a.s1;
   let s2 = a.s2;
   let min = a.min;
   let max = a.max;
   let under = a.under;
   let over = a.over;
+  let skipped = 0;
   const bins = a.bins;
   const lo = a.grid.lo;
   const inv = 1 / a.grid.width;
   const nb = a.grid.bins;
-  for (let s = from; s < n; s++) {
+  let s = from;
+  while (s + 3 < n) {
+    // Open interval of bin positions for the four-sample step: inside (b(min), b(max)) and the
+    // grid [0, nb). b > -MIN_VALUE is b >= 0. With no sample yet (min = +∞) it is empty.
+    const low = Math.max((min - lo) * inv, -Number.MIN_VALUE);
+    const high = Math.min((max - lo) * inv, nb);
+    for (; s + 3 < n; s += 4) {
+      const x0 = col[s];
+      const x1 = col[s + 1];
+      const x2 = col[s + 2];
+      const x3 = col[s + 3];
+      const b0 = (x0 - lo) * inv;
+      const b1 = (x1 - lo) * inv;
+      const b2 = (x2 - lo) * inv;
+      const b3 = (x3 - lo) * inv;
+      // NaN fails every comparison, so a sample without a value leaves the step too.
+      if (!(b0 > low && b0 < high && b1 > low && b1 < high && b2 > low && b2 < high && b3 > low && b3 < high))
+        break;
+      // Truncation equals floor for b >= 0.
+      bins[b0 | 0]++;
+      bins[b1 | 0]++;
+      bins[b2 | 0]++;
+      bins[b3 | 0]++;
+      const d0 = x0 - shift;
+      s1 += d0;
+      s2 += d0 * d0;
+      const d1 = x1 - shift;
+      s1 += d1;
+      s2 += d1 * d1;
+      const d2 = x2 - shift;
+      s1 += d2;
+      s2 += d2 * d2;
+      const d3 = x3 - shift;
+      s1 += d3;
+      s2 += d3 * d3;
+    }
+    if (s + 3 >= n) break;
+    // These four one by one (a new extreme, a value off the grid or not finite), as the tail below.
+    for (const end = s + 4; s < end; s++) {
+      const x = col[s];
+      const b = (x - lo) * inv;
+      if (b >= 0 && b < nb) bins[b | 0]++;
+      else if (x - x !== 0) {
+        skipped++;
+        continue;
+      } else if (b < 0) under++;
+      else over++;
+      const d = x - shift;
+      s1 += d;
+      s2 += d * d;
+      if (x < min) min = x;
+      if (x > max) max = x;
+    }
+  }
+  for (; s < n; s++) {
     const x = col[s];
-    if (x - x !== 0) continue;
-    count++;
-    const dx = x - shift;
-    s1 += dx;
-    s2 += dx * dx;
+    const b = (x - lo) * inv;
+    if (b >= 0 && b < nb) bins[b | 0]++;
+    else if (x - x !== 0) {
+      skipped++;
+      continue;
+    } else if (b < 0) under++;
+    else over++;
+    const d = x - shift;
+    s1 += d;
+    s2 += d * d;
     if (x < min) min = x;
     if (x > max) max = x;
-    // Position in bins; truncation equals floor once b >= 0.
-    const b = (x - lo) * inv;
-    if (b < 0) under++;
-    else if (b >= nb) over++;
-    else bins[b | 0]++;
   }
   // Plain field writes: no temporary object per call.
-  a.count = count;
+  a.count += n - from - skipped;
   a.s1 = s1;
   a.s2 = s2;
   a.min = min;
