@@ -5,6 +5,7 @@ import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
 import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
+import { CAPACITOR_PARTS } from '@sigmatail/engine';
 
 const REPO = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 
@@ -89,9 +90,35 @@ export async function startStack(name: string) {
     if (res.status >= 400) throw new Error(`${method} ${p}: ${res.status} ${JSON.stringify(json)}`);
     return json;
   };
-  const designs = await api('GET', '/api/designs');
-  const designId = designs.designs[0].id as string;
+  const designId = await benchDesign(api);
   return { url, base, cookie, api, designId, server };
+}
+
+type Api = (method: string, p: string, body?: unknown) => Promise<Record<string, any>>; // eslint-disable-line @typescript-eslint/no-explicit-any
+
+/**
+ * The demo design the runs use: BENCH_DESIGN picks one by name (case-insensitive substring),
+ * default the first listed. BENCH_MIDBAND=1 saves a copy without capacitors and frequency specs
+ * (the midband-only kernel, ~10× cheaper per sample) and runs that instead.
+ */
+async function benchDesign(api: Api): Promise<string> {
+  const { designs } = (await api('GET', '/api/designs')) as { designs: { id: string; name: string }[] };
+  const want = process.env.BENCH_DESIGN?.toLowerCase();
+  const picked = want ? designs.find((d) => d.name.toLowerCase().includes(want)) : designs[0];
+  if (!picked)
+    throw new Error(`no demo design named like "${want}": ${designs.map((d) => d.name).join(', ')}`);
+  if (process.env.BENCH_MIDBAND !== '1') return picked.id;
+  const { design } = await api('GET', `/api/designs/${picked.id}`);
+  const doc = structuredClone(design.latestRevision.document) as {
+    name: string;
+    parts: Record<string, unknown>;
+    specs?: { frequency?: number }[];
+  };
+  for (const id of CAPACITOR_PARTS) delete doc.parts[id];
+  doc.specs = doc.specs?.filter((s) => s.frequency === undefined);
+  doc.name = `${doc.name} (midband only)`;
+  const created = await api('POST', '/api/designs', { document: doc });
+  return created.design.id as string;
 }
 
 /** A worker process; `nice` 0 for throughput figures, the default 10 when the API shares the machine. */
@@ -145,7 +172,7 @@ const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.len
 async function main() {
   const samples = Number(process.argv[2] ?? 1_000_000);
   const repeats = Number(process.argv[3] ?? 3);
-  const stack = await startStack('sigmatail_bench_e2e');
+  const stack = await startStack(process.env.BENCH_DB ?? 'sigmatail_bench_e2e');
   const rows: { threads: number; wall: number; best: number; db: number }[] = [];
   let worker: Proc | undefined;
   try {
@@ -171,7 +198,7 @@ async function main() {
     await stack.server.stop();
   }
   console.log(
-    `\nEnd to end, ${samples.toLocaleString('en-US')} samples, DC point per sample (median of ${repeats}):`,
+    `\nEnd to end, ${samples.toLocaleString('en-US')} samples, DC point per sample (median of ${repeats}), design "${process.env.BENCH_DESIGN ?? '(first)'}"${process.env.BENCH_MIDBAND === '1' ? ' midband only' : ''}:`,
   );
   console.log(
     `machine: ${os.cpus().length} cores, load average ${os
