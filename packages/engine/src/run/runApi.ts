@@ -6,7 +6,6 @@ import type { RunPlan } from './runPlan.js';
 import type { RunResults } from './runResults.js';
 import { runSetupChunk } from './runSetupChunk.js';
 import { setupExtras } from './setupExtras.js';
-import { largeSignalSpread } from './largeSignalSpread.js';
 import { setupSampleRows } from './setupSampleRows.js';
 
 /**
@@ -39,17 +38,13 @@ export function mergeChunks(
 }
 
 /**
- * The once-per-run part of the results (nominal, influence, variance indices, worst case), for a
+ * The once-per-run part of the results (nominal, influence, variance indices, worst case, and the
+ * large-signal spread when plan.analyses.largeSignal is true), for a
  * caller that wants to compute it in parallel with the chunks and pass it to mergeChunks.
  * Costs about 20 000 + 8192·(d+2) + 2^k kernel evaluations.
  */
 export function runExtras(design: ResolvedDesign, plan: RunPlan): Partial<RunResults> {
-  const setup = designSetup(design);
-  const extras = setupExtras(setup, plan);
-  // The large-signal model is the long-tailed pair's; none for split-load.
-  if (plan.analyses?.largeSignal === true && design.topology !== 'split-load')
-    extras.largeSignal = largeSignalSpread(design, setup, plan);
-  return extras;
+  return setupExtras(designSetup(design), plan, design);
 }
 
 /**

@@ -88,16 +88,19 @@ export class ChunkQueue {
   }
 
   /**
-   * Stores a chunk's result (JSON text) if it is not stored yet and the run is still active;
-   * the worker whose delivery completes the run becomes its merger.
+   * Stores a chunk's result (JSON text, or the engine's binary layout) if it is not stored yet
+   * and the run is still active; the worker whose delivery completes the run becomes its merger.
    */
-  async deliver(runId: string, chunkIndex: number, resultJson: string): Promise<ChunkDelivery> {
+  async deliver(runId: string, chunkIndex: number, result: string | Uint8Array): Promise<ChunkDelivery> {
+    const bytes =
+      typeof result === 'string' ? null : Buffer.from(result.buffer, result.byteOffset, result.byteLength);
     return this.db.transaction().execute(async (trx) => {
       const stored = await trx
         .updateTable('run_chunks')
         .set({
           state: 'done',
-          result: resultJson,
+          result: typeof result === 'string' ? result : null,
+          result_bin: bytes,
           lease_owner: null,
           lease_until: null,
           done_at: sql<Date>`now()`,

@@ -3,7 +3,7 @@ import type { Piscina } from 'piscina';
 import { ChunkQueue, type ClaimedChunk } from '../runs/chunkQueue.js';
 import type { Db } from '../runs/runsDb.js';
 import { RunWorkStore, type RunWorkContext } from '../runs/runWorkStore.js';
-import type { ChunkTask, MergeOutput, MergeTask } from './taskHandler.js';
+import type { ChunkOutput, ChunkTask, MergeOutput, MergeTask } from './taskHandler.js';
 
 export type ChunkWorkerOptions = {
   db: Db;
@@ -126,7 +126,7 @@ export class ChunkWorker {
 
   private async runOne(chunk: ClaimedChunk, signal: AbortSignal): Promise<void> {
     try {
-      let json: string;
+      let out: ChunkOutput;
       try {
         const ctx = await this.context(chunk.runId);
         const task: ChunkTask = {
@@ -136,14 +136,14 @@ export class ChunkWorker {
           plan: ctx.plan,
           chunkIndex: chunk.chunkIndex,
         };
-        json = (await this.o.pool.run(task, { signal })) as string;
+        out = (await this.o.pool.run(task, { signal })) as ChunkOutput;
       } catch (err) {
         if (isConnectionError(err)) throw err; // the database failed, not the chunk (below)
         if (!signal.aborted && !this.stopped) await this.chunkFailed(chunk, (err as Error).message);
         return;
       }
       if (signal.aborted) return;
-      const d = await this.queue.deliver(chunk.runId, chunk.chunkIndex, json);
+      const d = await this.queue.deliver(chunk.runId, chunk.chunkIndex, out);
       if (d.kind === 'stored' && d.mergeNow) this.startMerge(chunk.runId);
     } catch (err) {
       // The database failed us, not the chunk: its lease expires and it is computed again.
