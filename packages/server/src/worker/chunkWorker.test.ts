@@ -67,6 +67,32 @@ describe('ChunkWorker with the fake job', () => {
     expect(stored.valid_count).toBe(20_000);
   });
 
+  it('still finishes a run queued before the split (the once-per-run work as one task)', async () => {
+    const runId = await buildRun(db, { samples: 5_000, chunkSize: 700, seed: 'old', legacyExtras: true });
+    const pool = createChunkPool({ threads: 1, taskUrl: fakeTask });
+    const worker = new ChunkWorker({
+      db,
+      databaseUrl: url,
+      pool,
+      owner: 'w-old',
+      threads: 1,
+      leaseMs: 5_000,
+      pollMs: 50,
+    });
+    worker.start();
+    await waitForStatus(runId, ['done']);
+    await worker.stop();
+    await pool.destroy();
+    const run = await db.selectFrom('runs').selectAll().where('id', '=', runId).executeTakeFirstOrThrow();
+    expect([run.chunks_done, run.chunk_total]).toEqual([9, 9]); // 8 sample chunks and the one task
+    const stored = await db
+      .selectFrom('run_results')
+      .selectAll()
+      .where('run_id', '=', runId)
+      .executeTakeFirstOrThrow();
+    expect(stored.results).toEqual(directResult(5_000, 700, 'old'));
+  });
+
   it('ignores a chunk delivered twice and counts it once', async () => {
     const runId = await buildRun(db, { samples: 3_000, chunkSize: 1_000, extrasTasks: 1 });
     const q = new ChunkQueue(db, 'dup', 5_000);

@@ -19,7 +19,11 @@ type StoredRow = { chunk_index: number; text: string | null; bin: Buffer | null 
  * without a binary form), and the merge reads chunk results from the database in this thread, so
  * the worker's main thread (which keeps leases alive) never parses or holds large objects.
  */
-export function createTaskHandler<D, C, R>(job: RunJob<D, C, R>) {
+export function createTaskHandler<D, C, R>(
+  job: RunJob<D, C, R>,
+  /** false returns a chunk's bytes as they are (called outside a pool, as tests do). */
+  o: { transfer?: boolean } = {},
+) {
   // A thread serves many chunks of one run, and many runs of one design: prepare each design
   // document once (keyed by its text), so the engine's per-design setup is reused across runs.
   const prepared = new Map<string, D>();
@@ -109,7 +113,8 @@ export function createTaskHandler<D, C, R>(job: RunJob<D, C, R>) {
     if (k < EXTRAS_INDEX) return JSON.stringify(job.runExtrasPart(design, task.plan, extrasPartOf(k)));
     const chunk = job.runChunk(design, task.plan, k);
     if (!job.encodeChunk) return JSON.stringify(chunk);
-    return move(job.encodeChunk(design, chunk)) as Uint8Array;
+    const bytes = job.encodeChunk(design, chunk);
+    return o.transfer === false ? bytes : (move(bytes) as Uint8Array);
   }
   return handle;
 }
