@@ -14,11 +14,10 @@ describe('chunk results as bytes', () => {
   const plan: RunPlan = { samples: 5_000, seed: 'bytes', plan: 'random', chunkSize: 2_000 };
   const chunks = [0, 1, 2].map((k) => runChunk(design, plan, k));
 
-  it('decode(encode(chunk)) equals the chunk after a JSON round trip, and is smaller', () => {
+  it('decode(encode(chunk)) equals the chunk after a JSON round trip', () => {
     for (const c of chunks) {
       const bytes = encodeChunkResult(c);
       expect(decodeChunkResult(bytes, ids)).toStrictEqual(viaJson(c));
-      expect(bytes.byteLength).toBeLessThan(JSON.stringify(c).length);
     }
   });
 

@@ -24,7 +24,8 @@ const binArray = (width: number, buffer: ArrayBufferLike, offset: number, length
  * JSON: float64 fields (header, spec passes, per metric the statistics; NaN for a null), then
  * every metric's bins as unsigned counts of 1, 2 or 4 bytes (the narrowest that holds the largest
  * count). Metrics in the chunk's own key order (kernel order); decodeChunkResult needs those ids.
- * Smaller than the JSON, and no text to write or parse.
+ * About the JSON's size (a default 65 536-sample chunk: 246 kB against 183 kB of JSON, the bins
+ * needing 2 bytes), but nothing to write or parse, and the buffer moves between threads uncopied.
  *
  * @example decodeChunkResult(encodeChunkResult(chunk), setup.model.kernel.metrics)
  */
