@@ -41,19 +41,25 @@ describe('chunk results as bytes', () => {
     expect(Object.is(back.metrics[ids[0]].m2, 0)).toBe(true);
   });
 
-  it('stores counts in 1, 2 or 4 bytes, as the largest count needs', () => {
-    for (const [big, width] of [
-      [200, 1],
-      [300, 2],
-      [70_000, 4],
-    ] as const) {
-      const c = structuredClone(chunks[0]);
-      for (const id of ids) c.metrics[id].bins = [1, 0, 3];
-      c.metrics[ids[1]].bins = [big, 0, 3];
-      const bytes = encodeChunkResult(c);
-      expect(new Float64Array(bytes.buffer, 0, 12)[11]).toBe(width);
-      expect(decodeChunkResult(bytes, ids)).toStrictEqual(viaJson(c));
-    }
+  it('stores each count in as few 7-bit bytes as it needs, up to 2^32 − 1', () => {
+    const c = structuredClone(chunks[0]);
+    const sizes = [0, 127, 128, 16_383, 16_384, 2 ** 21, 2 ** 28, 2 ** 32 - 1];
+    for (const id of ids) c.metrics[id].bins = [];
+    c.metrics[ids[1]].bins = sizes;
+    const bare = encodeChunkResult({
+      ...c,
+      metrics: { ...c.metrics, [ids[1]]: { ...c.metrics[ids[1]], bins: [] } },
+    });
+    const bytes = encodeChunkResult(c);
+    expect(bytes.byteLength - bare.byteLength).toBe(1 + 1 + 2 + 2 + 3 + 4 + 5 + 5);
+    expect(decodeChunkResult(bytes, ids).metrics[ids[1]].bins).toEqual(sizes);
+  });
+
+  it('a default 65 536-sample chunk takes less room than its JSON', () => {
+    const big = runChunk(design, { ...plan, samples: 65_536, chunkSize: 65_536 }, 0);
+    const bytes = encodeChunkResult(big);
+    expect(bytes.byteLength).toBeLessThan(JSON.stringify(big).length);
+    expect(decodeChunkResult(bytes, ids)).toStrictEqual(viaJson(big));
   });
 
   it('refuses counts that are not uint32, bytes of another layout and another design', () => {
@@ -66,5 +72,6 @@ describe('chunk results as bytes', () => {
     new Float64Array(other.buffer, 0, 1)[0] = 99;
     expect(() => decodeChunkResult(other, ids)).toThrow(/layout/);
     expect(() => decodeChunkResult(new Uint8Array(8), ids)).toThrow(/too short/);
+    expect(() => decodeChunkResult(bytes.slice(0, bytes.byteLength - 1), ids)).toThrow(/truncated/);
   });
 });

@@ -2,53 +2,43 @@ import type { MetricChunk } from '../stats/metricChunk.js';
 import type { ChunkResult } from './chunkResult.js';
 
 /** Layout version, the first number of every encoded chunk. */
-const BINARY_VERSION = 1;
-/** Float64 slots before the spec passes: layout, chunk fields, pairing, counts, bin width. */
-const HEAD = 12;
+const BINARY_VERSION = 2;
+/** Float64 slots before the spec passes: layout, chunk fields, pairing, spec and metric counts. */
+const HEAD = 11;
 /** Float64 slots per metric: count, mean, m2, min, max, under, over, binOffset, bin count. */
 const PER_METRIC = 9;
 
-/** Narrowest unsigned integer array (1, 2 or 4 bytes) that holds every count. */
-function binWidth(max: number): 1 | 2 | 4 {
-  return max <= 0xff ? 1 : max <= 0xffff ? 2 : 4;
-}
-const binArray = (width: number, buffer: ArrayBufferLike, offset: number, length: number) =>
-  width === 1
-    ? new Uint8Array(buffer, offset, length)
-    : width === 2
-      ? new Uint16Array(buffer, offset, length)
-      : new Uint32Array(buffer, offset, length);
+/** Bytes of a count as a varint (7 bits a byte, low bits first). */
+const varintBytes = (c: number): number =>
+  c < 0x80 ? 1 : c < 0x4000 ? 2 : c < 0x200000 ? 3 : c < 0x10000000 ? 4 : 5;
 
 /**
  * A chunk result as bytes, for moving it between threads without a copy and storing it without
  * JSON: float64 fields (header, spec passes, per metric the statistics; NaN for a null), then
- * every metric's bins as unsigned counts of 1, 2 or 4 bytes (the narrowest that holds the largest
- * count). Metrics in the chunk's own key order (kernel order); decodeChunkResult needs those ids.
- * About the JSON's size (a default 65 536-sample chunk: 246 kB against 183 kB of JSON, the bins
- * needing 2 bytes), but nothing to write or parse, and the buffer moves between threads uncopied.
+ * every metric's bins as varints (7 bits a byte: an empty bin is one byte, a count under 16 384
+ * two). Metrics in the chunk's own key order (kernel order); decodeChunkResult needs those ids.
+ * A default 65 536-sample chunk of the capacitor demo design: ~half its JSON; nothing to write or
+ * parse, and the buffer moves between threads uncopied.
  *
  * @example decodeChunkResult(encodeChunkResult(chunk), setup.model.kernel.metrics)
  */
 export function encodeChunkResult(chunk: ChunkResult): Uint8Array {
   const metrics = Object.values(chunk.metrics);
   const floats = HEAD + chunk.specPass.length + PER_METRIC * metrics.length;
-  let bins = 0;
-  let max = 0;
+  let binBytes = 0;
   for (const m of metrics) {
-    bins += m.bins.length;
     for (const c of m.bins) {
       if (!(c >= 0 && c <= 0xffffffff && Number.isInteger(c)))
         throw new RangeError(`bins must be counts 0..2^32-1 (got ${c})`);
-      if (c > max) max = c;
+      binBytes += varintBytes(c);
     }
   }
-  const width = binWidth(max);
-  const buffer = new ArrayBuffer(floats * 8 + bins * width);
+  const buffer = new ArrayBuffer(floats * 8 + binBytes);
   const f = new Float64Array(buffer, 0, floats);
-  const u = binArray(width, buffer, floats * 8, bins);
+  const u = new Uint8Array(buffer, floats * 8, binBytes);
   const p = chunk.pairing;
   f.set([BINARY_VERSION, chunk.chunkIndex, chunk.start, chunk.n, chunk.validCount, chunk.jointPass]);
-  f.set([p.samples, p.draws, p.failures, chunk.specPass.length, metrics.length, width], 6);
+  f.set([p.samples, p.draws, p.failures, chunk.specPass.length, metrics.length], 6);
   f.set(chunk.specPass, HEAD);
   let at = HEAD + chunk.specPass.length;
   let b = 0;
@@ -62,8 +52,14 @@ export function encodeChunkResult(chunk: ChunkResult): Uint8Array {
     f[at++] = m.over;
     f[at++] = m.binOffset;
     f[at++] = m.bins.length;
-    u.set(m.bins, b);
-    b += m.bins.length;
+    for (const count of m.bins) {
+      let c = count;
+      while (c >= 0x80) {
+        u[b++] = (c & 0x7f) | 0x80;
+        c = Math.floor(c / 0x80);
+      }
+      u[b++] = c;
+    }
   }
   return new Uint8Array(buffer);
 }
@@ -87,13 +83,10 @@ export function decodeChunkResult(input: Uint8Array, metricIds: readonly string[
   const count = head[10];
   if (count !== metricIds.length)
     throw new RangeError(`chunk bytes: ${count} metrics, the design has ${metricIds.length}`);
-  const width = head[11];
-  if (width !== 1 && width !== 2 && width !== 4) throw new RangeError(`chunk bytes: bin width ${width}`);
   const floats = HEAD + specs + PER_METRIC * count;
-  const binBytes = bytes.byteLength - floats * 8;
-  if (binBytes < 0 || binBytes % width !== 0) throw new RangeError('chunk bytes: truncated');
+  if (bytes.byteLength < floats * 8) throw new RangeError('chunk bytes: truncated');
   const f = new Float64Array(bytes.buffer, bytes.byteOffset, floats);
-  const u = binArray(width, bytes.buffer, bytes.byteOffset + floats * 8, binBytes / width);
+  const u = new Uint8Array(bytes.buffer, bytes.byteOffset + floats * 8, bytes.byteLength - floats * 8);
   const specPass = Array.from(f.subarray(HEAD, HEAD + specs), num);
   const metrics: Record<string, MetricChunk> = {};
   let at = HEAD + specs;
@@ -101,7 +94,18 @@ export function decodeChunkResult(input: Uint8Array, metricIds: readonly string[
   for (const id of metricIds) {
     const nBins = f[at + 8];
     const bins = new Array<number>(nBins);
-    for (let i = 0; i < nBins; i++) bins[i] = u[b++];
+    for (let i = 0; i < nBins; i++) {
+      let x = 0;
+      let scale = 1;
+      let byte: number;
+      do {
+        if (b >= u.length) throw new RangeError('chunk bytes: bins truncated');
+        byte = u[b++];
+        x += (byte & 0x7f) * scale;
+        scale *= 0x80;
+      } while (byte & 0x80);
+      bins[i] = x;
+    }
     metrics[id] = {
       count: num(f[at]),
       mean: orNull(f[at + 1]),
