@@ -7,7 +7,7 @@ import { startStack, startWorker } from './runEndToEnd.js';
 
 const seconds = Number(process.argv[2] ?? 10);
 const connections = Number(process.argv[3] ?? 100);
-const stack = await startStack('sigmatail_bench_api');
+const stack = await startStack(process.env.BENCH_DB ?? 'sigmatail_bench_api');
 const worker = startWorker(stack.url, 2);
 try {
   await worker.waitFor(/started/);

@@ -188,6 +188,8 @@ export interface RunChunksTable {
   attempts: ColumnType<number, number | undefined, number>;
   /** The engine's ChunkResult (json column: the number text is kept verbatim). */
   result: ColumnType<unknown, string | null | undefined, string | null>;
+  /** A chunk's result in the engine's binary layout (encodeChunkResult), when stored so. */
+  result_bin: ColumnType<Buffer | null, Buffer | null | undefined, Buffer | null>;
   done_at: NullableTimestamp;
 }
 

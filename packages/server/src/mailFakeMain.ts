@@ -1,7 +1,11 @@
 // Process entry for the local SMTP fake: stores every mail to 127.0.0.1:SMTP_PORT in dev_mail.
 import { createDb, ensureDatabase, migrateToLatest } from '@sigmatail/db';
+import { createLogger } from './http/logger.js';
 import { startMailFake } from './mail/startMailFake.js';
 import { readEnvConfig } from './readEnvConfig.js';
+
+// One JSON line per event (pino), like the API server and the worker.
+const logger = createLogger('sigmatail-mail-fake');
 
 async function main(): Promise<void> {
   const config = readEnvConfig();
@@ -10,15 +14,15 @@ async function main(): Promise<void> {
   await migrateToLatest(db);
   let fake;
   try {
-    fake = await startMailFake({ db, port: config.smtpPort });
+    fake = await startMailFake({ db, port: config.smtpPort, logger });
   } catch (err) {
     if ((err as NodeJS.ErrnoException).code === 'EADDRINUSE') {
-      console.error(`port ${config.smtpPort} is already in use — stop the other process or set SMTP_PORT`);
+      logger.error({ port: config.smtpPort }, 'port already in use: stop the other process or set SMTP_PORT');
       process.exit(1);
     }
     throw err;
   }
-  console.log(`sigmatail mail fake on smtp://127.0.0.1:${fake.port}`);
+  logger.info({ url: `smtp://127.0.0.1:${fake.port}` }, 'mail fake listening');
   const stop = (): void => {
     void fake
       .close()
@@ -30,6 +34,6 @@ async function main(): Promise<void> {
 }
 
 main().catch((err: unknown) => {
-  console.error(`mail fake failed to start: ${err instanceof Error ? err.message : String(err)}`);
+  logger.error({ err: err instanceof Error ? err.message : String(err) }, 'mail fake failed to start');
   process.exit(1);
 });

@@ -43,7 +43,8 @@ async function main(): Promise<void> {
   if (process.env.SIGMATAIL_SEED_DEMO === '1') await seedDemo(db);
   // SIGMATAIL_MAIL_FAKE=1 runs the SMTP fake in this process instead of `mailFakeMain`.
   let smtpPort = config.smtpPort;
-  if (process.env.SIGMATAIL_MAIL_FAKE === '1') smtpPort = (await startMailFake({ db, port: smtpPort })).port;
+  if (process.env.SIGMATAIL_MAIL_FAKE === '1')
+    smtpPort = (await startMailFake({ db, port: smtpPort, logger })).port;
   const mailer = createSmtpMailer({ port: smtpPort, from: config.mailFrom });
   const app = createApp({ db, mailer, config, logger });
 

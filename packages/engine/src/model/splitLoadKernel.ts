@@ -200,6 +200,10 @@ export function createSplitLoadKernel(
         circuit.rt = rt;
         circuit.perv1 = perv;
         circuit.muScale1 = xmu;
+        // Each sample starts from the nominal point, not the previous sample's: a sample's bits
+        // then depend on its inputs only, not on what the thread evaluated before (chunk order,
+        // parallel once-per-run parts, regenerated exports).
+        bp.ia1 = nb.ia1;
         if (solveSplitLoadBiasInto(circuit, bp, nominalValid, SAMPLE_STEP_TOL) !== 'ok') {
           writeInvalid(out, s);
           continue;

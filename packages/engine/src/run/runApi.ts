@@ -39,12 +39,12 @@ export function mergeChunks(
 
 /**
  * The once-per-run part of the results (nominal, influence, variance indices, worst case, and the
- * per-sample large-signal figures when plan.analyses.largeSignal), for a
+ * large-signal spread when plan.analyses.largeSignal is true), for a
  * caller that wants to compute it in parallel with the chunks and pass it to mergeChunks.
  * Costs about 20 000 + 8192·(d+2) + 2^k kernel evaluations.
  */
 export function runExtras(design: ResolvedDesign, plan: RunPlan): Partial<RunResults> {
-  return setupExtras(designSetup(design), plan);
+  return setupExtras(designSetup(design), plan, design);
 }
 
 /**

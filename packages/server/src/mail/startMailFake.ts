@@ -1,6 +1,7 @@
 import type { AddressInfo } from 'node:net';
 import type { Database } from '@sigmatail/db';
 import type { Kysely } from 'kysely';
+import type { Logger } from 'pino';
 import { simpleParser, type AddressObject } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
 
@@ -28,10 +29,13 @@ export async function startMailFake({
   db,
   port,
   host = '127.0.0.1',
+  logger,
 }: {
   db: Kysely<Database>;
   port: number;
   host?: string;
+  /** One line per stored mail and per server error; none when absent. */
+  logger?: Logger;
 }): Promise<MailFake> {
   const server = new SMTPServer({
     authOptional: true,
@@ -51,9 +55,13 @@ export async function startMailFake({
               html: typeof mail.html === 'string' ? mail.html : null,
             })
             .execute();
+          logger?.info({ to: addresses(mail.to), subject: mail.subject ?? '' }, 'mail stored');
           callback();
         })
-        .catch((err: Error) => callback(err));
+        .catch((err: Error) => {
+          logger?.error({ err: err.message }, 'mail not stored');
+          callback(err);
+        });
     },
   });
   await new Promise<void>((resolve, reject) => {
@@ -63,7 +71,9 @@ export async function startMailFake({
       resolve();
     });
   });
-  server.on('error', (err) => console.error('mail fake:', err.message));
+  server.on('error', (err) =>
+    logger ? logger.error({ err: err.message }, 'mail fake error') : console.error('mail fake:', err.message),
+  );
   const bound = (server.server.address() as AddressInfo).port;
   return {
     port: bound,

@@ -88,58 +88,39 @@ export class ChunkQueue {
   }
 
   /**
-   * Stores a chunk's result (JSON text) if it is not stored yet and the run is still active;
-   * the worker whose delivery completes the run becomes its merger.
+   * Stores a chunk's result (JSON text, or the engine's binary layout) if it is not stored yet
+   * and the run is still active; the worker whose delivery completes the run becomes its merger.
    */
-  async deliver(runId: string, chunkIndex: number, resultJson: string): Promise<ChunkDelivery> {
-    return this.db.transaction().execute(async (trx) => {
-      const stored = await trx
-        .updateTable('run_chunks')
-        .set({
-          state: 'done',
-          result: resultJson,
-          lease_owner: null,
-          lease_until: null,
-          done_at: sql<Date>`now()`,
-        })
-        .where('run_id', '=', runId)
-        .where('chunk_index', '=', chunkIndex)
-        .where('state', '<>', 'done')
-        .where(({ exists, selectFrom }) =>
-          exists(
-            selectFrom('runs')
-              .select('id')
-              .where('id', '=', runId)
-              .where('status', 'in', ['queued', 'running']),
-          ),
-        )
-        .returning('chunk_index')
-        .executeTakeFirst();
-      if (!stored) return { kind: 'ignored' } as const;
-      // The run row lock serialises deliveries, so exactly one sees the last chunk land.
-      const run = await trx
-        .updateTable('runs')
-        .set((eb) => {
-          const last = sql<boolean>`chunks_done + 1 >= chunk_total`;
-          return {
-            chunks_done: eb('chunks_done', '+', 1),
-            status: sql`case when ${last} then 'merging' else 'running' end`,
-            merge_owner: sql`case when ${last} then ${this.owner} else merge_owner end`,
-            merge_lease_until: sql`case when ${last} then now() + ${this.leaseMs} * interval '1 millisecond' else merge_lease_until end`,
-          };
-        })
-        .where('id', '=', runId)
-        .where('status', 'in', ['queued', 'running'])
-        .returning(['chunks_done', 'chunk_total', 'status'])
-        .executeTakeFirst();
-      if (!run) return { kind: 'ignored' } as const;
-      return {
-        kind: 'stored',
-        chunksDone: run.chunks_done,
-        chunkTotal: run.chunk_total,
-        mergeNow: run.status === 'merging',
-      } as const;
-    });
+  async deliver(runId: string, chunkIndex: number, result: string | Uint8Array): Promise<ChunkDelivery> {
+    const bytes =
+      typeof result === 'string' ? null : Buffer.from(result.buffer, result.byteOffset, result.byteLength);
+    // One statement (one round trip for the worker's main thread, instead of four): the chunk
+    // row is stored, then the run row counted; the run row's lock serialises deliveries, and the
+    // count is re-read after the wait, so exactly one delivery sees the last chunk land.
+    const last = sql<boolean>`r.chunks_done + 1 >= r.chunk_total`;
+    const { rows } = await sql<{ chunks_done: number; chunk_total: number; status: string }>`
+      with stored as (
+        update run_chunks set state = 'done',
+          result = ${typeof result === 'string' ? result : null}::json, result_bin = ${bytes}::bytea,
+          lease_owner = null, lease_until = null, done_at = now()
+        where run_id = ${runId} and chunk_index = ${chunkIndex} and state <> 'done'
+          and exists (select 1 from runs where id = ${runId} and status in ('queued', 'running'))
+        returning chunk_index)
+      update runs r set chunks_done = r.chunks_done + 1,
+        status = case when ${last} then 'merging' else 'running' end,
+        merge_owner = case when ${last} then ${this.owner} else r.merge_owner end,
+        merge_lease_until = case when ${last} then now() + ${this.leaseMs} * interval '1 millisecond'
+          else r.merge_lease_until end
+      where r.id = ${runId} and r.status in ('queued', 'running') and exists (select 1 from stored)
+      returning r.chunks_done, r.chunk_total, r.status`.execute(this.db);
+    const run = rows[0];
+    if (!run) return { kind: 'ignored' };
+    return {
+      kind: 'stored',
+      chunksDone: run.chunks_done,
+      chunkTotal: run.chunk_total,
+      mergeNow: run.status === 'merging',
+    };
   }
 
   /**

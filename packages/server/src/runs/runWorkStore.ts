@@ -61,7 +61,11 @@ export class RunWorkStore {
         .onConflict((oc) => oc.column('run_id').doNothing())
         .execute();
       // Merged: the chunk results (~100 kB each, 1 500 of them at 1e8 samples) are not needed again.
-      await trx.updateTable('run_chunks').set({ result: null }).where('run_id', '=', runId).execute();
+      await trx
+        .updateTable('run_chunks')
+        .set({ result: null, result_bin: null })
+        .where('run_id', '=', runId)
+        .execute();
       return true;
     });
   }

@@ -28,9 +28,9 @@ afterAll(async () => {
 /** Drives a run to its end the way the worker does (all chunks delivered, then merged). */
 async function finishRun(samples: number): Promise<string> {
   const chunkSize = Math.ceil(samples / 2);
-  const runId = await buildRun(db, { samples, chunkSize });
+  const runId = await buildRun(db, { samples, chunkSize, extrasTasks: 1 });
   const q = new ChunkQueue(db, `notify-${runId}`, 60_000);
-  for (const i of [-1, 0, 1]) await q.deliver(runId, i, '{}');
+  for (const i of [-2, 0, 1]) await q.deliver(runId, i, '{}');
   const stored = await new RunWorkStore(db).storeResults(runId, `notify-${runId}`, {
     json: '{"joint":{"yield":0.9973}}',
     validCount: samples,

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ChunkQueue } from '../runs/chunkQueue.js';
 import type { Db } from '../runs/runsDb.js';
+import { EXTRAS_TASKS } from '../runs/insertRunChunks.js';
 import { buildRun } from '../runs/testing/buildRun.js';
 import { createTestDb } from '../runs/testing/runsTestDb.js';
 import { ChunkWorker } from './chunkWorker.js';
@@ -35,7 +36,10 @@ function directResult(samples: number, chunkSize: number, seed: string) {
   const design = fakeJob.prepare({ spinPerSample: 1 });
   const chunks: FakeChunk[] = [];
   for (let k = 0; k < Math.ceil(samples / chunkSize); k++) chunks.push(fakeJob.runChunk(design, plan, k));
-  const merger = fakeJob.createMerger(design, plan, fakeJob.runExtras(design, plan));
+  const parts = Array.from({ length: fakeJob.extrasParts }, (_p, i) =>
+    fakeJob.runExtrasPart(design, plan, i),
+  );
+  const merger = fakeJob.createMerger(design, plan, fakeJob.assembleExtras(design, plan, parts));
   chunks.forEach((c) => merger.add(c));
   return merger.finish();
 }
@@ -53,7 +57,7 @@ describe('ChunkWorker with the fake job', () => {
     await Promise.all(workers.map((w) => w.stop()));
     await pool.destroy();
     const run = await db.selectFrom('runs').selectAll().where('id', '=', runId).executeTakeFirstOrThrow();
-    expect(run.chunks_done).toBe(30); // 29 sample chunks and the once-per-run task
+    expect(run.chunks_done).toBe(29 + EXTRAS_TASKS); // 29 sample chunks and the once-per-run parts
     const stored = await db
       .selectFrom('run_results')
       .selectAll()
@@ -63,11 +67,37 @@ describe('ChunkWorker with the fake job', () => {
     expect(stored.valid_count).toBe(20_000);
   });
 
+  it('still finishes a run queued before the split (the once-per-run work as one task)', async () => {
+    const runId = await buildRun(db, { samples: 5_000, chunkSize: 700, seed: 'old', legacyExtras: true });
+    const pool = createChunkPool({ threads: 1, taskUrl: fakeTask });
+    const worker = new ChunkWorker({
+      db,
+      databaseUrl: url,
+      pool,
+      owner: 'w-old',
+      threads: 1,
+      leaseMs: 5_000,
+      pollMs: 50,
+    });
+    worker.start();
+    await waitForStatus(runId, ['done']);
+    await worker.stop();
+    await pool.destroy();
+    const run = await db.selectFrom('runs').selectAll().where('id', '=', runId).executeTakeFirstOrThrow();
+    expect([run.chunks_done, run.chunk_total]).toEqual([9, 9]); // 8 sample chunks and the one task
+    const stored = await db
+      .selectFrom('run_results')
+      .selectAll()
+      .where('run_id', '=', runId)
+      .executeTakeFirstOrThrow();
+    expect(stored.results).toEqual(directResult(5_000, 700, 'old'));
+  });
+
   it('ignores a chunk delivered twice and counts it once', async () => {
-    const runId = await buildRun(db, { samples: 3_000, chunkSize: 1_000 });
+    const runId = await buildRun(db, { samples: 3_000, chunkSize: 1_000, extrasTasks: 1 });
     const q = new ChunkQueue(db, 'dup', 5_000);
     const claimed = await q.claim(10);
-    expect(claimed.map((c) => c.chunkIndex)).toEqual([-1, 0, 1, 2]);
+    expect(claimed.map((c) => c.chunkIndex)).toEqual([-2, 0, 1, 2]);
     const first = await q.deliver(runId, 1, '{"x":1}');
     const again = await q.deliver(runId, 1, '{"x":2}');
     expect(first).toEqual({ kind: 'stored', chunksDone: 1, chunkTotal: 4, mergeNow: false });
@@ -80,7 +110,7 @@ describe('ChunkWorker with the fake job', () => {
       .executeTakeFirstOrThrow();
     expect(row.result).toEqual({ x: 1 });
     await q.deliver(runId, 0, '{}');
-    await q.deliver(runId, -1, '{}');
+    await q.deliver(runId, -2, '{}');
     const last = await q.deliver(runId, 2, '{}');
     expect(last).toMatchObject({ kind: 'stored', chunksDone: 4, mergeNow: true });
     expect(await q.deliver(runId, 2, '{}')).toEqual({ kind: 'ignored' });
@@ -98,13 +128,13 @@ describe('ChunkWorker with the fake job', () => {
   });
 
   it('takes back an expired lease and fails a run whose chunk keeps dying', async () => {
-    const runId = await buildRun(db, { samples: 1_000, chunkSize: 1_000 });
+    const runId = await buildRun(db, { samples: 1_000, chunkSize: 1_000, extrasTasks: 1 });
     const dying = new ChunkQueue(db, 'dying', 1, 2); // 1 ms lease: expires at once
     expect(await dying.claim(2)).toHaveLength(2);
     await new Promise((r) => setTimeout(r, 20));
     const again = await dying.claim(2);
     expect(again).toEqual([
-      { runId, chunkIndex: -1, attempts: 2 },
+      { runId, chunkIndex: -2, attempts: 2 },
       { runId, chunkIndex: 0, attempts: 2 },
     ]);
     await new Promise((r) => setTimeout(r, 20));
@@ -131,7 +161,7 @@ describe('ChunkWorker with the fake job', () => {
       threads: 1,
       leaseMs: 5_000,
       pollMs: 50,
-      log: (l) => lines.push(l),
+      log: (_level, msg, f) => lines.push(`${msg} ${f?.chunkIndex}`),
     });
     worker.start();
     await waitForStatus(runId, ['failed']);
@@ -144,15 +174,15 @@ describe('ChunkWorker with the fake job', () => {
       .executeTakeFirstOrThrow();
     expect(run.error).toBe('chunk 3 failed: chunk 3 cannot be computed');
     expect(run.finished_at).not.toBeNull();
-    expect(lines.filter((l) => l.includes('chunk 3 attempt'))).toHaveLength(3);
+    expect(lines.filter((l) => l === 'chunk failed 3')).toHaveLength(3);
   });
 
   it('lets runs take turns, so a small run is not stuck behind a big one', async () => {
-    const big = await buildRun(db, { samples: 50_000, chunkSize: 1_000 });
-    const small = await buildRun(db, { samples: 2_000, chunkSize: 1_000 });
+    const big = await buildRun(db, { samples: 50_000, chunkSize: 1_000, extrasTasks: 1 });
+    const small = await buildRun(db, { samples: 2_000, chunkSize: 1_000, extrasTasks: 1 });
     const q = new ChunkQueue(db, 'turns', 5_000);
     const claimed = await q.claim(6);
-    expect(claimed.filter((c) => c.runId === small).map((c) => c.chunkIndex)).toEqual([-1, 0, 1]);
-    expect(claimed.filter((c) => c.runId === big).map((c) => c.chunkIndex)).toEqual([-1, 0, 1]);
+    expect(claimed.filter((c) => c.runId === small).map((c) => c.chunkIndex)).toEqual([-2, 0, 1]);
+    expect(claimed.filter((c) => c.runId === big).map((c) => c.chunkIndex)).toEqual([-2, 0, 1]);
   });
 });

@@ -3,7 +3,8 @@ import type { Piscina } from 'piscina';
 import { ChunkQueue, type ClaimedChunk } from '../runs/chunkQueue.js';
 import type { Db } from '../runs/runsDb.js';
 import { RunWorkStore, type RunWorkContext } from '../runs/runWorkStore.js';
-import type { ChunkTask, MergeOutput, MergeTask } from './taskHandler.js';
+import type { ChunkOutput, ChunkTask, MergeOutput, MergeTask } from './taskHandler.js';
+import { errorText, type WorkerLog } from './workerLog.js';
 
 export type ChunkWorkerOptions = {
   db: Db;
@@ -18,7 +19,7 @@ export type ChunkWorkerOptions = {
   /** Fallback polling period when no notification arrives. */
   pollMs: number;
   maxAttempts?: number;
-  log?: (line: string) => void;
+  log?: WorkerLog;
   /** Called after each loop turn (sends pending notifications); errors are logged. */
   housekeeping?: () => Promise<void>;
 };
@@ -42,7 +43,7 @@ export class ChunkWorker {
   private wakePending = false;
   private heartbeatTimer: NodeJS.Timeout | undefined;
   private loopDone: Promise<void> | undefined;
-  private readonly log: (line: string) => void;
+  private readonly log: WorkerLog;
 
   constructor(private readonly o: ChunkWorkerOptions) {
     this.queue = new ChunkQueue(o.db, o.owner, o.leaseMs, o.maxAttempts ?? 3);
@@ -89,11 +90,12 @@ export class ChunkWorker {
           const orphan = await this.queue.claimOrphanMerge();
           if (orphan) this.startMerge(orphan);
           const failed = await this.queue.failExhausted();
-          for (const id of failed) this.log(`run ${id} failed: a chunk exhausted its attempts`);
+          for (const id of failed)
+            this.log('warn', 'run failed: a chunk exhausted its attempts', { runId: id });
           await this.o.housekeeping?.();
         }
       } catch (err) {
-        this.log(`worker loop: ${(err as Error).message}`);
+        this.log('error', 'worker loop failed', { err: errorText(err) });
       }
       if (this.stopped) break;
       if (this.wakePending) {
@@ -112,9 +114,12 @@ export class ChunkWorker {
     }
   }
 
-  /** Two tasks per thread: one running, one queued, so no thread waits for a database round trip. */
+  /**
+   * Three tasks per thread: one running, two queued, so no thread waits for a database round trip
+   * (a midband chunk computes in ~60 ms, about a store and a claim on a busy machine).
+   */
   private async fill(): Promise<void> {
-    const room = this.o.threads * 2 - this.inFlight.size;
+    const room = this.o.threads * 3 - this.inFlight.size;
     if (room <= 0) return;
     const claimed = await this.queue.claim(room);
     for (const chunk of claimed) {
@@ -126,7 +131,7 @@ export class ChunkWorker {
 
   private async runOne(chunk: ClaimedChunk, signal: AbortSignal): Promise<void> {
     try {
-      let json: string;
+      let out: ChunkOutput;
       try {
         const ctx = await this.context(chunk.runId);
         const task: ChunkTask = {
@@ -136,18 +141,19 @@ export class ChunkWorker {
           plan: ctx.plan,
           chunkIndex: chunk.chunkIndex,
         };
-        json = (await this.o.pool.run(task, { signal })) as string;
+        out = (await this.o.pool.run(task, { signal })) as ChunkOutput;
       } catch (err) {
         if (isConnectionError(err)) throw err; // the database failed, not the chunk (below)
         if (!signal.aborted && !this.stopped) await this.chunkFailed(chunk, (err as Error).message);
         return;
       }
       if (signal.aborted) return;
-      const d = await this.queue.deliver(chunk.runId, chunk.chunkIndex, json);
+      const d = await this.queue.deliver(chunk.runId, chunk.chunkIndex, out);
+      if (d.kind === 'stored') this.log('debug', 'chunk stored', { ...where(chunk), done: d.chunksDone });
       if (d.kind === 'stored' && d.mergeNow) this.startMerge(chunk.runId);
     } catch (err) {
       // The database failed us, not the chunk: its lease expires and it is computed again.
-      this.log(`run ${chunk.runId} chunk ${chunk.chunkIndex}: result not stored: ${(err as Error).message}`);
+      this.log('warn', 'chunk result not stored', { ...where(chunk), err: errorText(err) });
     } finally {
       this.inFlight.delete(key(chunk));
       this.wake();
@@ -156,7 +162,7 @@ export class ChunkWorker {
 
   /** A chunk that threw is tried again (by any worker) until its attempts run out; then the run fails. */
   private async chunkFailed(chunk: ClaimedChunk, message: string): Promise<void> {
-    this.log(`run ${chunk.runId} chunk ${chunk.chunkIndex} attempt ${chunk.attempts}: ${message}`);
+    this.log('warn', 'chunk failed', { ...where(chunk), attempt: chunk.attempts, err: message });
     if (chunk.attempts >= (this.o.maxAttempts ?? 3)) {
       await this.store.fail(chunk.runId, `chunk ${chunk.chunkIndex} failed: ${message}`);
     } else {
@@ -181,10 +187,10 @@ export class ChunkWorker {
       };
       const out = (await this.o.pool.run(task)) as MergeOutput;
       const stored = await this.store.storeResults(runId, this.o.owner, out);
-      this.log(stored ? `run ${runId} done` : `run ${runId}: merge discarded`);
+      this.log('info', stored ? 'run done' : 'merge discarded', { runId });
     } catch (err) {
       if (this.stopped) return;
-      this.log(`run ${runId} merge failed: ${(err as Error).message}`);
+      this.log('error', 'merge failed', { runId, err: errorText(err) });
       // A database outage is not the run's fault: leave the merge lease to expire, and this or
       // another worker merges again once the database answers.
       if (isConnectionError(err)) return;
@@ -225,10 +231,10 @@ export class ChunkWorker {
           }
         }
         this.contexts.delete(runId);
-        if (n > 0) this.log(`run ${runId} ${s ?? 'deleted'}: aborted ${n} task(s)`);
+        if (n > 0) this.log('info', `run ${s ?? 'deleted'}: tasks aborted`, { runId, tasks: n });
       }
     } catch (err) {
-      this.log(`heartbeat: ${(err as Error).message}`);
+      this.log('error', 'heartbeat failed', { err: errorText(err) });
     } finally {
       this.heartbeating = false;
     }
@@ -236,3 +242,4 @@ export class ChunkWorker {
 }
 
 const key = (c: ClaimedChunk) => `${c.runId}:${c.chunkIndex}`;
+const where = (c: ClaimedChunk) => ({ runId: c.runId, chunkIndex: c.chunkIndex });

@@ -1,10 +1,16 @@
 import {
+  assembleExtras,
   createRunAccumulator,
+  decodeChunkResult,
   designSetup,
+  encodeChunkResult,
+  EXTRAS_PARTS,
   parseDesign,
   runChunk,
   runExtras,
+  runExtrasPart,
   type ChunkResult,
+  type ExtrasPartValue,
   type ResolvedDesign,
   type RunResults,
   withMonteCarloSpread,
@@ -24,6 +30,11 @@ export const engineJob: RunJob<ResolvedDesign, ChunkResult, RunResults> = {
     return parsed.design;
   },
   runChunk: (design, plan, chunkIndex) => runChunk(design, plan, chunkIndex),
+  encodeChunk: (_design, chunk) => encodeChunkResult(chunk),
+  decodeChunk: (design, bytes) => decodeChunkResult(bytes, designSetup(design).model.kernel.metrics),
+  extrasParts: EXTRAS_PARTS.length,
+  runExtrasPart: (design, plan, part) => runExtrasPart(designSetup(design), plan, part, design),
+  assembleExtras: (design, _plan, parts) => assembleExtras(designSetup(design), parts as ExtrasPartValue[]),
   runExtras: (design, plan) => runExtras(design, plan),
   // The steps of the engine's mergeChunks, fed one chunk at a time instead of from one array.
   createMerger(design, plan, extras) {

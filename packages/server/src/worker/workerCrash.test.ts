@@ -107,7 +107,10 @@ describe('worker processes', () => {
     await waitUntil(async () => ((await runRow(runId)).status === 'running' ? true : undefined));
     await db.updateTable('runs').set({ status: 'cancelled' }).where('id', '=', runId).execute();
     await notifyRuns(db, 'changed', runId);
-    await w.waitFor(new RegExp(`run ${runId} cancelled: aborted [12] task`), 5_000);
+    await w.waitFor(
+      new RegExp(`"runId":"${runId}".*"tasks":[1-3].*"msg":"run cancelled: tasks aborted"`),
+      5_000,
+    );
     // The freed thread takes the next run at once.
     const next = await buildRun(db, { samples: 1_000, chunkSize: 1_000 });
     await notifyRuns(db, 'launched', next);

@@ -1,6 +1,7 @@
 import crypto from 'node:crypto';
 import os from 'node:os';
 import { createDb } from '@sigmatail/db';
+import { pino } from 'pino';
 import { DEFAULT_CONFIG } from '../config.js';
 import { createSmtpMailer, type Mailer } from '../mail/mailer.js';
 import type { Db } from '../runs/runsDb.js';
@@ -8,6 +9,7 @@ import { sendRunNotifications } from '../runs/sendRunNotifications.js';
 import { ChunkWorker } from './chunkWorker.js';
 import { createChunkPool, defaultThreads } from './chunkPool.js';
 import { listenRuns } from './runsChannel.js';
+import { errorText, pinoWorkerLog, type WorkerLog } from './workerLog.js';
 
 export type WorkerProcessOptions = {
   env: NodeJS.ProcessEnv;
@@ -16,15 +18,15 @@ export type WorkerProcessOptions = {
 };
 
 /** Mails owners about finished large runs; after an SMTP failure, waits before trying again. */
-function notificationHousekeeping(db: Db, mailer: Mailer, appUrl: string, log: (line: string) => void) {
+function notificationHousekeeping(db: Db, mailer: Mailer, appUrl: string, log: WorkerLog) {
   let retryAt = 0;
   return async () => {
     if (Date.now() < retryAt) return;
     try {
       const n = await sendRunNotifications(db, mailer, appUrl);
-      if (n > 0) log(`mailed ${n} run notification(s)`);
+      if (n > 0) log('info', 'run notifications mailed', { mails: n });
     } catch (err) {
-      log(`run notifications: ${(err as Error).message}; retrying in 30 s`);
+      log('warn', 'run notifications failed; retrying in 30 s', { err: errorText(err) });
       retryAt = Date.now() + 30_000;
     }
   };
@@ -52,7 +54,10 @@ export async function runWorkerProcess(o: WorkerProcessOptions): Promise<void> {
   const leaseMs = positiveInt(o.env, 'SIGMATAIL_LEASE_MS', 30_000);
   const pollMs = positiveInt(o.env, 'SIGMATAIL_POLL_MS', 1_000);
   const owner = `${os.hostname()}:${process.pid}:${crypto.randomBytes(3).toString('hex')}`;
-  const log = (line: string) => process.stdout.write(`[worker ${owner}] ${line}\n`);
+  // One JSON line per event (pino, like the API server), with the worker's owner id on each.
+  // Not silenced under vitest as the server's is: crash tests read a spawned worker's lines.
+  const logger = pino({ name: 'sigmatail-worker', level: o.env.LOG_LEVEL || 'info' }).child({ owner });
+  const log = pinoWorkerLog(logger);
 
   // Chunks are batch work: below the API server in CPU priority when both share a machine, so
   // page loads stay quick while a long run computes. Set before the pool starts: on Linux each
@@ -84,16 +89,16 @@ export async function runWorkerProcess(o: WorkerProcessOptions): Promise<void> {
   const channel = listenRuns(
     url,
     (event) => (event === 'launched' ? worker.wake() : worker.runChanged()),
-    log,
+    (line) => logger.warn(line),
   );
   worker.start();
-  log(`started: ${threads} thread(s), lease ${leaseMs} ms, nice ${os.getPriority()}`);
+  log('info', 'started', { threads, leaseMs, nice: os.getPriority() });
 
   let stopping = false;
   const stop = async (signal: string) => {
     if (stopping) return;
     stopping = true;
-    log(`${signal}: stopping`);
+    log('info', `${signal}: stopping`);
     await worker.stop();
     await channel.close();
     await pool.destroy();

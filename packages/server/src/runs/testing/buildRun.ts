@@ -3,6 +3,7 @@ import type { RunStatus } from '@sigmatail/db';
 import { ENGINE_VERSION } from '@sigmatail/engine';
 import { insertRunChunks, queuedTasks } from '../insertRunChunks.js';
 import type { Db } from '../runsDb.js';
+import { EXTRAS_INDEX } from '../../worker/runJob.js';
 
 type Overrides = Partial<{
   samples: number;
@@ -10,6 +11,10 @@ type Overrides = Partial<{
   seed: string;
   design: unknown;
   status: RunStatus;
+  /** Queue the once-per-run work as one task (EXTRAS_INDEX), as runs launched before the split did. */
+  legacyExtras: boolean;
+  /** Once-per-run parts to queue (default: the engine's); queue tests use fewer. */
+  extrasTasks: number;
 }>;
 
 /** Builder fixture: a workspace, a user and a design to hang runs on. */
@@ -53,11 +58,15 @@ export async function buildRun(db: Db, o: Overrides = {}): Promise<string> {
       analyses: '{}',
       design: JSON.stringify(o.design ?? { spinPerSample: 1 }),
       engine_version: ENGINE_VERSION,
-      chunk_total: queuedTasks(chunkTotal),
+      chunk_total: o.legacyExtras ? chunkTotal + 1 : queuedTasks(chunkTotal, o.extrasTasks),
       status: o.status,
     })
     .returning('id')
     .executeTakeFirstOrThrow();
-  await insertRunChunks(db, run.id, chunkTotal);
+  await insertRunChunks(db, run.id, chunkTotal, o.extrasTasks);
+  if (o.legacyExtras) {
+    await db.deleteFrom('run_chunks').where('run_id', '=', run.id).where('chunk_index', '<', 0).execute();
+    await db.insertInto('run_chunks').values({ run_id: run.id, chunk_index: EXTRAS_INDEX }).execute();
+  }
   return run.id;
 }

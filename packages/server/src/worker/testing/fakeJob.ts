@@ -1,3 +1,4 @@
+import { EXTRAS_TASKS } from '../../runs/insertRunChunks.js';
 import type { RunJob } from '../runJob.js';
 
 /**
@@ -37,6 +38,17 @@ export const fakeJob: RunJob<{ spin: number; failChunk: number }, FakeChunk, Fak
       if (u > max) max = u;
     }
     return { chunkIndex, count: end - start, sum, min, max };
+  },
+  // As many parts as the engine's, so runs queued by launchRun or buildRun fit either job.
+  extrasParts: EXTRAS_TASKS,
+  runExtrasPart(design, plan, part) {
+    return { part, spin: design.spin, samples: plan.samples };
+  },
+  assembleExtras(_design, plan, parts) {
+    const ps = parts as { part: number; spin: number; samples: number }[];
+    if (ps.length !== EXTRAS_TASKS || ps.some((p, i) => p.part !== i))
+      throw new Error('extras parts missing');
+    return { spin: ps[0]!.spin, samples: plan.samples };
   },
   runExtras(design, plan) {
     return { spin: design.spin, samples: plan.samples };
