@@ -14,7 +14,21 @@ const LEVELS: Record<number, string> = {
 };
 
 /** Fields shown after the message when present (the rest stay in the JSON record). */
-const KEPT = ['runId', 'chunk', 'task', 'thread', 'attempt', 'samples', 'ms', 'err'];
+const KEPT = [
+  'runId',
+  'chunkIndex',
+  'attempt',
+  'tasks',
+  'mails',
+  'threads',
+  'leaseMs',
+  'nice',
+  'url',
+  'to',
+  'subject',
+  'port',
+  'err',
+];
 
 type Record_ = {
   level?: number;

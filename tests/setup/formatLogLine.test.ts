@@ -22,11 +22,11 @@ describe('formatLogLine (npm start console)', () => {
       time: Date.UTC(2026, 11, 3, 10, 0, 0),
       msg: 'chunk failed',
       runId: 'r1',
-      chunk: 3,
+      chunkIndex: 3,
       err: { type: 'Error', message: 'boom now' },
       other: 'hidden',
     });
-    expect(formatLogLine(line)).toBe('10:00:00 ERROR chunk failed runId=r1 chunk=3 err="boom now"');
+    expect(formatLogLine(line)).toBe('10:00:00 ERROR chunk failed runId=r1 chunkIndex=3 err="boom now"');
   });
 
   it('passes plain text and JSON that is not a log record through unchanged', () => {
