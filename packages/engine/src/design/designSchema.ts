@@ -249,6 +249,10 @@ export type PartName = keyof Design['parts'];
 /** Capacitor part names (farads); the rest are resistors (ohms). */
 export const CAPACITOR_PARTS = ['cin', 'cg2', 'cout1', 'cout2', 'cstray1', 'cstray2'] as const;
 
+/** Parts of a long-tailed pair that a split-load stage has no place for (section 2's plate load,
+ * grid leak and grid bypass). */
+export const SPLIT_LOAD_UNUSED_PARTS = ['rl2', 'rg2', 'cg2'] as const satisfies readonly PartName[];
+
 /** Resistor part names (ohms), in document order. */
 export const RESISTOR_PARTS = [
   'rl1',

@@ -2,6 +2,8 @@ import {
   CAPACITOR_PARTS,
   designSchema,
   RESISTOR_PARTS,
+  SPLIT_LOAD_UNUSED_PARTS,
+  type PartName,
   type Design,
   type Part,
   type ResolvedDesign,
@@ -52,14 +54,18 @@ function resolveDesign(d: Design): ResolvedDesign {
   const p = d.parts;
   // Resistors in document order (RL2 and RG2 absent only in a split-load design): the order of
   // the parts fixes which random stream each draws from, so it must not move.
+  // A split-load document may still carry the pair's section-2 parts (documents saved before
+  // they became optional): they are in no circuit node, so they are dropped here rather than
+  // drawn, priced by a plan or listed with zero influence.
+  const unused: readonly PartName[] = d.topology === 'split-load' ? SPLIT_LOAD_UNUSED_PARTS : [];
   const parts = {} as ResolvedDesign['parts'];
   for (const name of RESISTOR_PARTS) {
     const r = p[name];
-    if (r) parts[name] = resolvePart(r);
+    if (r && !unused.includes(name)) parts[name] = resolvePart(r);
   }
   for (const name of CAPACITOR_PARTS) {
     const c = p[name];
-    if (c) parts[name] = resolvePart(c, 'capacitance');
+    if (c && !unused.includes(name)) parts[name] = resolvePart(c, 'capacitance');
   }
   return { ...d, parts };
 }

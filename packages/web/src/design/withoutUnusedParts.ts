@@ -1,4 +1,4 @@
-import type { Design } from '@sigmatail/engine';
+import { SPLIT_LOAD_UNUSED_PARTS, type Design } from '@sigmatail/engine';
 
 /**
  * The document as saved: a split-load design without the parts it does not use (RL2 and RG2 of a
@@ -10,6 +10,7 @@ import type { Design } from '@sigmatail/engine';
  */
 export function withoutUnusedParts(doc: Design): Design {
   if (doc.topology !== 'split-load') return doc;
-  const { rl2: _rl2, rg2: _rg2, cg2: _cg2, ...parts } = doc.parts;
+  const parts = { ...doc.parts };
+  for (const name of SPLIT_LOAD_UNUSED_PARTS) delete parts[name];
   return { ...doc, parts };
 }
