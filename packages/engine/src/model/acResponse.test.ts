@@ -1,16 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { add as cadd, complex, lusolve, unaryMinus, type Complex as MathComplex } from 'mathjs';
+import { complex, lusolve, type Complex as MathComplex } from 'mathjs';
 import { AC_SLOTS, acResponse, H_SLOTS, pairAcSolver, writeAcCircuit, type AcCircuit } from './acResponse.js';
 import { cornerFrequencyArr } from './cornerFrequency.js';
 import { createStageGains } from './closedFormGains.js';
 import { reducedNodalGainsInto } from './reducedNodalGains.js';
 import { solveComplexInPlace } from './complexSolve.js';
+import { lcg, logUniform as logU } from './testRandom.js';
+import { complexNodalSystem } from './testComplexNodal.js';
 
-function lcg(seed: number) {
-  let s = seed >>> 0;
-  return () => (s = (Math.imul(s, 1664525) + 1013904223) >>> 0) / 2 ** 32;
-}
-const logU = (r: () => number, lo: number, hi: number) => lo * (hi / lo) ** r();
 const cabs = (re: number, im: number) => Math.hypot(re, im);
 
 function randomCircuit(r: () => number): AcCircuit {
@@ -41,21 +38,7 @@ function randomCircuit(r: () => number): AcCircuit {
  */
 function mathjsResponse(c: AcCircuit, f: number): { h1: MathComplex; h2: MathComplex } {
   const [P1, P2, K, J, G1, G2, X, O1, O2, S, I] = [0, 1, 2, 3, 4, 5, 6, 7, 8, 9, 10];
-  const n = 11;
-  const w = 2 * Math.PI * f;
-  const a: MathComplex[][] = Array.from({ length: n }, () => Array.from({ length: n }, () => complex(0, 0)));
-  const b: MathComplex[] = Array.from({ length: n }, () => complex(0, 0));
-  const add = (i: number, j: number, y: MathComplex) => (a[i][j] = cadd(a[i][j], y));
-  const y = (p: number, q: number, val: MathComplex) => {
-    add(p, p, val);
-    if (q >= 0) {
-      add(q, q, val);
-      add(p, q, unaryMinus(val));
-      add(q, p, unaryMinus(val));
-    }
-  };
-  const g = (p: number, q: number, r: number) => y(p, q, complex(1 / r, 0));
-  const cap = (p: number, q: number, cv: number) => y(p, q, complex(0, w * cv));
+  const { a, g, cap, transconductance, voltageSource, solve } = complexNodalSystem(11, f);
   g(P1, -1, c.rl1);
   g(P2, -1, c.rl2);
   cap(P1, O1, c.cout1);
@@ -66,16 +49,8 @@ function mathjsResponse(c: AcCircuit, f: number): { h1: MathComplex; h2: MathCom
   cap(P2, -1, c.cstray2);
   g(P1, K, c.rp1);
   g(P2, K, c.rp2);
-  for (const [p, gr, gm] of [
-    [P1, G1, c.mu1 / c.rp1],
-    [P2, G2, c.mu2 / c.rp2],
-  ]) {
-    // gm·(v_grid − v_K) leaves the plate node and enters the cathode node.
-    add(p, gr, complex(gm, 0));
-    add(p, K, complex(-gm, 0));
-    add(K, gr, complex(-gm, 0));
-    add(K, K, complex(gm, 0));
-  }
+  transconductance(P1, K, G1, c.mu1 / c.rp1);
+  transconductance(P2, K, G2, c.mu2 / c.rp2);
   cap(G1, K, c.cgk1);
   cap(G2, K, c.cgk2);
   cap(G1, P1, c.cgp1);
@@ -92,16 +67,14 @@ function mathjsResponse(c: AcCircuit, f: number): { h1: MathComplex; h2: MathCom
   else g(G2, -1, 1e-300); // grid 2 held at AC ground below
   cap(X, G1, c.cin);
   g(S, X, c.rsource);
-  add(S, I, complex(1, 0));
-  add(I, S, complex(1, 0));
-  b[I] = complex(1, 0);
+  voltageSource(S, I, 1);
   if (!(c.capCoupled || c.leakToGrid1)) {
     // Direct-coupled 'fixed': grid 2 is an ideal AC ground.
     a[G2] = a[G2].map(() => complex(0, 0));
     a[G2][G2] = complex(1, 0);
   }
-  const x = lusolve(a, b) as unknown as MathComplex[][];
-  return { h1: complex(x[O1][0]), h2: complex(x[O2][0]) };
+  const x = solve();
+  return { h1: x[O1], h2: x[O2] };
 }
 
 describe('complex solver', () => {

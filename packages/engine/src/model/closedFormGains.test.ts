@@ -1,13 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { Matrix, solve } from 'ml-matrix';
 import { closedFormGainsInto, createStageGains } from './closedFormGains.js';
+import { lcg, logUniform } from './testRandom.js';
 
 /** Small deterministic generator for test circuits (common practice, no source). */
-function lcg(seed: number) {
-  let s = seed >>> 0;
-  return () => (s = (Math.imul(s, 1664525) + 1013904223) >>> 0) / 2 ** 32;
-}
-const logUniform = (r: () => number, lo: number, hi: number) => lo * (hi / lo) ** r();
 
 /**
  * Node equations of the ideal pair in (Vp1, Vp2, Vk), solved by ml-matrix (an independent general

@@ -1,10 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { harmonicsOfPeriod, harmonicsOfTransfer } from './harmonics.js';
-
-function lcg(seed: number) {
-  let s = seed >>> 0;
-  return () => (s = (Math.imul(s, 1664525) + 1013904223) >>> 0) / 2 ** 32;
-}
+import { lcg } from './testRandom.js';
 
 /** A second, independent transform: the direct DFT sum, Hk = (2/n)·|Σ y_j·e^(−2πijk/n)|. */
 function directDft(y: Float64Array, k: number): number {

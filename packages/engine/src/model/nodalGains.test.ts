@@ -4,13 +4,7 @@ import { nodalGains } from './nodalGains.js';
 import { reducedNodalGainsInto, type SmallSignalCircuit } from './reducedNodalGains.js';
 import { closedFormGainsInto, createStageGains } from './closedFormGains.js';
 import { solveDenseInPlace } from './denseSolve.js';
-
-function lcg(seed: number) {
-  let s = seed >>> 0;
-  return () => (s = (Math.imul(s, 1664525) + 1013904223) >>> 0) / 2 ** 32;
-}
-const logU = (r: () => number, lo: number, hi: number) => lo * (hi / lo) ** r();
-const rel = (a: number, b: number) => (a === b ? 0 : Math.abs(a - b) / Math.max(Math.abs(b), 1e-300));
+import { lcg, logUniform as logU, relativeError as rel } from './testRandom.js';
 
 function randomCircuit(r: () => number): SmallSignalCircuit {
   const mode = r();

@@ -19,13 +19,7 @@ import {
   SS_SLOTS,
 } from './reducedNodalGains.js';
 import { splitLoadGainsArr } from './splitLoadGains.js';
-
-function lcg(seed: number) {
-  let s = seed >>> 0;
-  return () => (s = (Math.imul(s, 1664525) + 1013904223) >>> 0) / 2 ** 32;
-}
-const logU = (r: () => number, lo: number, hi: number) => lo * (hi / lo) ** r();
-const rel = (a: number, b: number) => (a === b ? 0 : Math.abs(a - b) / Math.max(Math.abs(b), 1e-300));
+import { lcg, logUniform as logU, relativeError as rel } from './testRandom.js';
 
 interface Cathodyne {
   mu: number;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { add as cadd, complex, lusolve, unaryMinus, type Complex as MathComplex } from 'mathjs';
+import type { Complex as MathComplex } from 'mathjs';
 import {
   AC_CGK1,
   AC_CGP1,
@@ -35,12 +35,9 @@ import {
 } from './reducedNodalGains.js';
 import { splitLoadGainsArr } from './splitLoadGains.js';
 import { splitLoadResponseArr } from './splitLoadResponse.js';
+import { lcg, logUniform as logU } from './testRandom.js';
+import { complexNodalSystem } from './testComplexNodal.js';
 
-function lcg(seed: number) {
-  let s = seed >>> 0;
-  return () => (s = (Math.imul(s, 1664525) + 1013904223) >>> 0) / 2 ** 32;
-}
-const logU = (r: () => number, lo: number, hi: number) => lo * (hi / lo) ** r();
 const cabs = (re: number, im: number) => Math.hypot(re, im);
 
 interface Cathodyne {
@@ -103,21 +100,7 @@ function toArray(c: Cathodyne): Float64Array {
  */
 function mathjsResponse(c: Cathodyne, f: number): { h1: MathComplex; h2: MathComplex } {
   const [P, K, J, G, X, O1, O2, S, I] = [0, 1, 2, 3, 4, 5, 6, 7, 8];
-  const n = 9;
-  const w = 2 * Math.PI * f;
-  const a: MathComplex[][] = Array.from({ length: n }, () => Array.from({ length: n }, () => complex(0, 0)));
-  const b: MathComplex[] = Array.from({ length: n }, () => complex(0, 0));
-  const add = (i: number, j: number, y: MathComplex) => (a[i][j] = cadd(a[i][j], y));
-  const y = (p: number, q: number, val: MathComplex) => {
-    add(p, p, val);
-    if (q >= 0) {
-      add(q, q, val);
-      add(p, q, unaryMinus(val));
-      add(q, p, unaryMinus(val));
-    }
-  };
-  const g = (p: number, q: number, r: number) => y(p, q, complex(1 / r, 0));
-  const cap = (p: number, q: number, cv: number) => y(p, q, complex(0, w * cv));
+  const { g, cap, transconductance, voltageSource, solve } = complexNodalSystem(9, f);
   g(P, -1, c.rl);
   cap(P, O1, c.cout1);
   g(O1, -1, c.rload1);
@@ -126,12 +109,7 @@ function mathjsResponse(c: Cathodyne, f: number): { h1: MathComplex; h2: MathCom
   cap(P, -1, c.cstray1);
   cap(K, -1, c.cstray2);
   g(P, K, c.rp);
-  // gm·(vG − vK) leaves the plate and enters the cathode.
-  const gm = c.mu / c.rp;
-  add(P, G, complex(gm, 0));
-  add(P, K, complex(-gm, 0));
-  add(K, G, complex(-gm, 0));
-  add(K, K, complex(gm, 0));
+  transconductance(P, K, G, c.mu / c.rp);
   cap(G, K, c.cgk);
   cap(G, P, c.cgp);
   cap(P, K, c.cpk);
@@ -149,11 +127,9 @@ function mathjsResponse(c: Cathodyne, f: number): { h1: MathComplex; h2: MathCom
     g(S, G, c.rs);
     g(X, -1, 1);
   }
-  add(S, I, complex(1, 0));
-  add(I, S, complex(1, 0));
-  b[I] = complex(1, 0);
-  const x = lusolve(a, b) as unknown as MathComplex[][];
-  return { h1: complex(x[O1][0]), h2: complex(x[O2][0]) };
+  voltageSource(S, I, 1);
+  const x = solve();
+  return { h1: x[O1], h2: x[O2] };
 }
 
 describe('splitLoadResponseArr', () => {

@@ -7,14 +7,10 @@ import { acResponse } from './acResponse.js';
 import { nodalGains } from './nodalGains.js';
 import { korenCurrent } from '../tubes/korenTriode.js';
 import { TUBE_CATALOG } from '../tubes/tubeCatalog.js';
+import { lcg } from './testRandom.js';
 
 const col = (id: (typeof METRIC_IDS)[number]) => METRIC_IDS.indexOf(id);
 const inp = (id: (typeof INPUTS)[number]) => INPUTS.indexOf(id);
-
-function lcg(seed: number) {
-  let s = seed >>> 0;
-  return () => (s = (Math.imul(s, 1664525) + 1013904223) >>> 0) / 2 ** 32;
-}
 
 function run(design: ResolvedDesign, n: number, spread: number, opts?: { dcPerSample?: boolean }) {
   const k = createStageKernel(design, opts);
