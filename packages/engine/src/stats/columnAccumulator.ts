@@ -115,7 +115,7 @@ function accumulateRangeInPlace(a: ColumnAccumulator, col: Float64Array, from: n
   const inv = 1 / a.grid.width;
   const nb = a.grid.bins;
   let s = from;
-  while (s + 3 < n) {
+  while (s < n) {
     // Open interval of bin positions for the four-sample step: inside (b(min), b(max)) and the
     // grid [0, nb). b > -MIN_VALUE is b >= 0. With no sample yet (min = +∞) it is empty.
     const low = Math.max((min - lo) * inv, -Number.MIN_VALUE);
@@ -150,9 +150,9 @@ function accumulateRangeInPlace(a: ColumnAccumulator, col: Float64Array, from: n
       s1 += d3;
       s2 += d3 * d3;
     }
-    if (s + 3 >= n) break;
-    // These four one by one (a new extreme, a value off the grid or not finite), as the tail below.
-    for (const end = s + 4; s < end; s++) {
+    // The next four one by one (a new extreme, a value off the grid or not finite), or the last
+    // one to three samples of the column.
+    for (const end = Math.min(s + 4, n); s < end; s++) {
       const x = col[s];
       const b = (x - lo) * inv;
       if (b >= 0 && b < nb) bins[b | 0]++;
@@ -167,21 +167,6 @@ function accumulateRangeInPlace(a: ColumnAccumulator, col: Float64Array, from: n
       if (x < min) min = x;
       if (x > max) max = x;
     }
-  }
-  for (; s < n; s++) {
-    const x = col[s];
-    const b = (x - lo) * inv;
-    if (b >= 0 && b < nb) bins[b | 0]++;
-    else if (x - x !== 0) {
-      skipped++;
-      continue;
-    } else if (b < 0) under++;
-    else over++;
-    const d = x - shift;
-    s1 += d;
-    s2 += d * d;
-    if (x < min) min = x;
-    if (x > max) max = x;
   }
   // Plain field writes: no temporary object per call.
   a.count += n - from - skipped;
