@@ -13,6 +13,7 @@ import {
   type ResolvedDesign,
   type RunPlan,
 } from '@sigmatail/engine';
+import { BENCH_CAPACITORS } from './src/benchCapacitors.js';
 
 const exampleDoc = (name: string): Record<string, unknown> =>
   JSON.parse(readFileSync(new URL(`../packages/engine/examples/${name}.json`, import.meta.url), 'utf8'));
@@ -23,16 +24,10 @@ const parsed = (doc: unknown): ResolvedDesign => {
 };
 const example = (name: string) => parsed(exampleDoc(name));
 const plain = buildTestDesign();
-const cap = (value: string, tolerance: number, kind = 'normal') => ({ value, tolerance, spread: { kind } });
 const withCaps = buildTestDesign({
   parts: {
     ...plain.parts,
-    cin: cap('22n', 10),
-    cg2: cap('100n', 10),
-    cout1: cap('22n', 10),
-    cout2: cap('22n', 10),
-    cstray1: cap('47p', 30, 'uniform'),
-    cstray2: cap('47p', 30, 'uniform'),
+    ...BENCH_CAPACITORS,
   },
   specs: [
     { metric: 'balanceDb', min: -1, max: 1 },

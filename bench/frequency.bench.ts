@@ -18,20 +18,15 @@ import {
   type RunSetup,
 } from '@sigmatail/engine';
 import { timeBest } from './src/timeBest.js';
+import { BENCH_CAPACITORS } from './src/benchCapacitors.js';
 
-const cap = (value: string, tolerance: number, kind = 'normal') => ({ value, tolerance, spread: { kind } });
 const plain = buildTestDesign();
 // The engine's bench design with film coupling/bypass capacitors, stray capacitance and 3 spec
 // frequencies (20 Hz, 1 kHz, 20 kHz).
 const design = buildTestDesign({
   parts: {
     ...Object.fromEntries(Object.entries(plain.parts).map(([k, p]) => [k, { ...p }])),
-    cin: cap('22n', 10),
-    cg2: cap('100n', 10),
-    cout1: cap('22n', 10),
-    cout2: cap('22n', 10),
-    cstray1: cap('47p', 30, 'uniform'),
-    cstray2: cap('47p', 30, 'uniform'),
+    ...BENCH_CAPACITORS,
   },
   specs: [
     { metric: 'balanceDb', min: -1, max: 1 },
