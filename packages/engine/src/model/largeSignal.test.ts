@@ -5,6 +5,7 @@ import { TUBE_CATALOG } from '../tubes/tubeCatalog.js';
 import { createLargeSignalStage } from './largeSignal.js';
 import { largeSignalReport } from './largeSignalReport.js';
 import { createStagePoint } from './stagePoint.js';
+import { bisect } from './testBisect.js';
 
 const design = () => {
   const d = buildDesign();
@@ -25,19 +26,6 @@ function bisectionPair(vin: number, rest: { va1: number; va2: number; vj: number
   const [rl1, rl2, rk, rt, rg1, rg2] = [p.rl1, p.rl2!, p.rk, p.rt, p.rg1, p.rg2!].map((x) => x.value);
   const [rload1, rload2] = [p.rload1!.value, p.rload2!.value];
   const bPlus = d.supply.bPlus;
-  const bisect = (fn: (v: number) => number, lo: number, hi: number) => {
-    let flo = fn(lo);
-    for (let i = 0; i < 200; i++) {
-      const mid = 0.5 * (lo + hi);
-      const fm = fn(mid);
-      if (fm === 0) return mid;
-      if (fm > 0 === flo > 0) {
-        lo = mid;
-        flo = fm;
-      } else hi = mid;
-    }
-    return 0.5 * (lo + hi);
-  };
   // Given Vk and VJ: each plate from its own node balance (monotone in Va).
   const plates = (vk: number, g1: number, g2: number) => {
     const va1 = bisect(

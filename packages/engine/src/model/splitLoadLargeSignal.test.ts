@@ -7,26 +7,13 @@ import { TUBE_CATALOG } from '../tubes/tubeCatalog.js';
 import { largeSignalReport } from './largeSignalReport.js';
 import { createSplitLoadLargeSignalStage } from './splitLoadLargeSignal.js';
 import { createStagePoint } from './stagePoint.js';
+import { bisect } from './testBisect.js';
 
 function example(): ResolvedDesign {
   const url = new URL('../../examples/guitar-12au7-split-load.json', import.meta.url);
   const r = parseDesign(JSON.parse(readFileSync(url, 'utf8')));
   if (!r.ok) throw new Error(JSON.stringify(r.errors));
   return r.design;
-}
-
-function bisect(fn: (v: number) => number, lo: number, hi: number): number {
-  let flo = fn(lo);
-  for (let i = 0; i < 200; i++) {
-    const mid = 0.5 * (lo + hi);
-    const fm = fn(mid);
-    if (fm === 0) return mid;
-    if (fm > 0 === flo > 0) {
-      lo = mid;
-      flo = fm;
-    } else hi = mid;
-  }
-  return 0.5 * (lo + hi);
 }
 
 /**
