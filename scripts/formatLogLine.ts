@@ -30,7 +30,7 @@ const KEPT = [
   'err',
 ];
 
-type Record_ = {
+type PinoRecord = {
   level?: number;
   time?: number;
   msg?: string;
@@ -59,9 +59,9 @@ function show(v: unknown): string {
  */
 export function formatLogLine(line: string): string {
   if (!line.startsWith('{')) return line;
-  let r: Record_;
+  let r: PinoRecord;
   try {
-    r = JSON.parse(line) as Record_;
+    r = JSON.parse(line) as PinoRecord;
   } catch {
     return line;
   }
