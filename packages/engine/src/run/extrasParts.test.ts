@@ -30,10 +30,10 @@ describe('once-per-run parts', () => {
         chunkSize: 1_024,
         analyses: { largeSignal: true },
       };
-      const oneGo = JSON.stringify(setupExtras(setup, plan, design));
+      const oneGo = JSON.stringify(setupExtras(setup, plan));
       const parts = EXTRAS_PARTS.map((_p, i) => i)
         .reverse()
-        .map((i) => viaJson(runExtrasPart(setup, plan, i, design)));
+        .map((i) => viaJson(runExtrasPart(setup, plan, i)));
       const assembled = assembleExtras(setup, parts.reverse());
       expect(JSON.stringify(assembled)).toBe(oneGo);
       // Keys in the results' order, whatever order the parts come in.
@@ -63,7 +63,7 @@ describe('once-per-run parts', () => {
       chunkSize: 100,
       analyses: { influence: false, varianceIndices: false, worstCase: false },
     };
-    const parts = EXTRAS_PARTS.map((_p, i) => runExtrasPart(setup, plan, i, design));
+    const parts = EXTRAS_PARTS.map((_p, i) => runExtrasPart(setup, plan, i));
     expect(parts.filter((p) => p.value !== null).map((p) => p.key)).toEqual(['nominal']);
     expect(Object.keys(assembleExtras(setup, parts))).toEqual(['nominal']);
   });

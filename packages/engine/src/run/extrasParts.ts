@@ -1,4 +1,3 @@
-import type { ResolvedDesign } from '../design/designSchema.js';
 import { nominalMetrics } from '../influence/nominalMetrics.js';
 import {
   combineVarianceIndices,
@@ -27,7 +26,7 @@ export const VARIANCE_GROUPS = 3;
  */
 export type ExtrasPart = {
   key: ExtrasKey;
-  run(setup: RunSetup, plan: RunPlan, design?: ResolvedDesign): unknown;
+  run(setup: RunSetup, plan: RunPlan): unknown;
 };
 
 /** One part's output as stored between tasks: its key and value (null = left out). */
@@ -54,9 +53,12 @@ export const EXTRAS_PARTS: readonly ExtrasPart[] = [
   },
   {
     key: 'largeSignal',
-    // largeSignalReport dispatches on the topology: the pair and the split-load alike.
-    run: (setup, plan, design) =>
-      plan.analyses?.largeSignal === true && design ? largeSignalSpread(design, setup, plan) : null,
+    // Needs the design itself (designSetup keeps it on the setup); largeSignalReport dispatches
+    // on the topology: the pair and the split-load alike.
+    run: (setup, plan) =>
+      plan.analyses?.largeSignal === true && setup.design
+        ? largeSignalSpread(setup.design, setup, plan)
+        : null,
   },
   { key: 'worstCase', run: (setup, plan) => (on(plan, 'worstCase') ? worstCase(setup.model) : null) },
   ...Array.from({ length: VARIANCE_GROUPS }, (_x, g): ExtrasPart => ({
@@ -77,17 +79,11 @@ export const EXTRAS_PARTS: readonly ExtrasPart[] = [
  *
  * @example runExtrasPart(setup, plan, 0) // { key: 'nominal', value: { gainDiff: 48.2, ... } }
  */
-export function runExtrasPart(
-  setup: RunSetup,
-  plan: RunPlan,
-  part: number,
-  design?: ResolvedDesign,
-): ExtrasPartValue {
+export function runExtrasPart(setup: RunSetup, plan: RunPlan, part: number): ExtrasPartValue {
   const p = EXTRAS_PARTS[part];
   if (!Number.isInteger(part) || p === undefined)
     throw new RangeError(`part must be an integer 0..${EXTRAS_PARTS.length - 1}`);
-  // A setup made by designSetup carries its design; an explicit one wins.
-  return { key: p.key, value: p.run(setup, plan, design ?? setup.design) };
+  return { key: p.key, value: p.run(setup, plan) };
 }
 
 /**

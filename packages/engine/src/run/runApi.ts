@@ -44,7 +44,7 @@ export function mergeChunks(
  * Costs about 20 000 + 8192·(d+2) + 2^k kernel evaluations.
  */
 export function runExtras(design: ResolvedDesign, plan: RunPlan): Partial<RunResults> {
-  return setupExtras(designSetup(design), plan, design);
+  return setupExtras(designSetup(design), plan);
 }
 
 /**

@@ -33,7 +33,7 @@ export const engineJob: RunJob<ResolvedDesign, ChunkResult, RunResults> = {
   encodeChunk: (_design, chunk) => encodeChunkResult(chunk),
   decodeChunk: (design, bytes) => decodeChunkResult(bytes, designSetup(design).model.kernel.metrics),
   extrasParts: EXTRAS_PARTS.length,
-  runExtrasPart: (design, plan, part) => runExtrasPart(designSetup(design), plan, part, design),
+  runExtrasPart: (design, plan, part) => runExtrasPart(designSetup(design), plan, part),
   assembleExtras: (design, _plan, parts) => assembleExtras(designSetup(design), parts as ExtrasPartValue[]),
   runExtras: (design, plan) => runExtras(design, plan),
   // The steps of the engine's mergeChunks, fed one chunk at a time instead of from one array.
